@@ -1,0 +1,78 @@
+// counts.hpp - validated tallies of successes and attempts, one group per row.
+//
+// The rules of functions.md ("Shared conventions") live here and only here:
+// blank-row skipping, positions counted over the whole range, whole
+// non-negative counts, successes <= attempts, booleans and text refused. The
+// UNO layer only turns each cell into an `entry`; every judgement about what
+// the user typed is made by `counts::from_entries`.
+#pragma once
+
+#include <cstddef>
+#include <cstdint>
+#include <span>
+#include <string>
+#include <vector>
+
+namespace tallyrates {
+
+// What one worksheet cell held, as far as the rules care.
+struct entry {
+    enum class kind { blank, number, text, boolean };
+    kind what = kind::blank;
+    double value = 0.0;  // meaningful for kind::number only
+
+    static entry blank() { return {}; }
+    static entry number(double v) { return {kind::number, v}; }
+    static entry text() { return {kind::text, 0.0}; }
+    static entry boolean() { return {kind::boolean, 0.0}; }
+};
+
+// One group with data: its 1-based position in the range and its tallies.
+struct group {
+    std::size_t position = 0;
+    std::int64_t successes = 0;
+    std::int64_t attempts = 0;
+    double rate() const { return static_cast<double>(successes) / static_cast<double>(attempts); }
+};
+
+// Largest count accepted. Above 2^53 doubles stop holding every integer; far
+// below that every method here has run out of meaning or budget anyway.
+inline constexpr double max_count = 1e15;
+// Largest number of positions in a range (a whole column is 1,048,576 rows).
+inline constexpr std::size_t max_positions = 1u << 21;
+
+class counts {
+public:
+    // Validates two ranges of equal size. Throws invalid_input naming the first
+    // bad position and why.
+    static counts from_entries(std::span<const entry> successes, std::span<const entry> attempts);
+    // Convenience for tests and internal use: no blank rows, positions 1..G.
+    static counts from_values(std::span<const std::int64_t> successes,
+                              std::span<const std::int64_t> attempts);
+
+    // Non-blank rows, in range order (attempts may be 0).
+    const std::vector<group>& groups() const { return groups_; }
+    // Non-blank rows with attempts > 0: what the frequentist tests use.
+    std::vector<group> with_attempts() const;
+    std::size_t range_size() const { return range_size_; }
+    std::int64_t total_successes() const { return total_successes_; }
+    std::int64_t total_attempts() const { return total_attempts_; }
+
+    // The group at a 1-based position; invalid_input for a blank row or a
+    // position outside the range. `argument` names the argument in messages.
+    const group& at_position(double position, const char* argument) const;
+
+    bool operator==(const counts&) const = default;
+
+private:
+    std::vector<group> groups_;
+    std::size_t range_size_ = 0;
+    std::int64_t total_successes_ = 0;
+    std::int64_t total_attempts_ = 0;
+};
+
+// Formats a number for messages: integers without a decimal point, others
+// with up to 6 significant digits.
+std::string format_number(double v);
+
+}  // namespace tallyrates

@@ -1,0 +1,40 @@
+// errors.hpp - the few exception types the engine throws.
+//
+// The engine reports three kinds of failure; extension/ maps each to one Calc
+// error code (architecture: invalid_input -> Err:502, budget_exceeded and
+// no_convergence -> Err:523). Messages are whole sentences a user can act on,
+// because RATES.CHECK and RATES.SAME.REPORT show them verbatim.
+#pragma once
+
+#include <cstddef>
+#include <stdexcept>
+#include <string>
+
+namespace tallyrates {
+
+// Bad input: a cell, an argument or a combination of them. `position` is the
+// 1-based position in the count range the problem is about, or 0 when the
+// problem is not about one row (an argument, a range shape).
+class invalid_input : public std::invalid_argument {
+public:
+    explicit invalid_input(const std::string& message, std::size_t position = 0)
+        : std::invalid_argument(message), position_(position) {}
+    std::size_t position() const noexcept { return position_; }
+
+private:
+    std::size_t position_;
+};
+
+// The requested work does not fit the hard cap on time or memory.
+class budget_exceeded : public std::runtime_error {
+public:
+    using std::runtime_error::runtime_error;
+};
+
+// An iterative method did not reach its accuracy target.
+class no_convergence : public std::runtime_error {
+public:
+    using std::runtime_error::runtime_error;
+};
+
+}  // namespace tallyrates

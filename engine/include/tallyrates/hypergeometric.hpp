@@ -1,0 +1,32 @@
+// hypergeometric.hpp - the conditional law of one group's successes when the
+// margins of the 2 x G table are fixed: drawing `draws` items from a
+// population of `population` of which `marked` are successes.
+//
+// Probabilities come from the ratio recurrence
+//   P(x+1) / P(x) = (K - x)(n - x) / ((x + 1)(M - K - n + x + 1))
+// run outwards from the mode and normalised by their sum (only + - * /: the
+// values are the same on every IEEE machine, which the Monte Carlo route
+// relies on for reproducibility). Relative error grows like (steps) * eps,
+// about 1e-13 at n = 500.
+#pragma once
+
+#include <cstdint>
+#include <vector>
+
+namespace tallyrates::detail {
+
+struct hypergeometric_support {
+    std::int64_t first = 0;  // smallest x with a stored probability
+    std::int64_t last = 0;   // largest
+};
+
+// The full support [max(0, n - (M - K)), min(n, K)].
+hypergeometric_support hypergeometric_range(std::int64_t population, std::int64_t marked, std::int64_t draws);
+
+// Fills `pmf` with P(first), ..., P(last) normalised to sum 1. With trim > 0,
+// values below trim * P(mode) are left out at both ends (their total is below
+// trim * (n + 1) relative to the mode). Returns the range actually stored.
+hypergeometric_support hypergeometric_pmf(std::int64_t population, std::int64_t marked, std::int64_t draws,
+                                          std::vector<double>& pmf, double trim = 0.0);
+
+}  // namespace tallyrates::detail

@@ -1,0 +1,144 @@
+// omnibus.hpp - "do all groups share one success rate?" on the 2 x G table.
+//
+// Statistics: Pearson X^2 and likelihood-ratio G^2 with G - 1 degrees of
+// freedom (Agresti 2002, Categorical Data Analysis, sections 1.5 and 3.2).
+// Exact conditional test: margins fixed, the table follows the multivariate
+// hypergeometric law; tables ordered by X^2, by G^2 or by their probability
+// (Freeman & Halton 1951). Monte Carlo with fixed margins by sequential
+// hypergeometric draws (the 2 x G case of Patefield 1981, AS 159), p-value
+// (1 + extreme) / (B + 1) (Davison & Hinkley 1997; Phipson & Smyth 2010).
+// Trend across ordered groups: Cochran (1954), Armitage (1955).
+//
+// Groups with no attempts carry no information about a shared rate and are
+// left out; at least two groups with attempts are needed.
+#pragma once
+
+#include <cstdint>
+#include <span>
+#include <string>
+#include <vector>
+
+#include "tallyrates/counts.hpp"
+
+namespace tallyrates::omnibus {
+
+// The statistic that orders tables from least to most extreme.
+enum class ordering { pearson, lr, probability };
+
+// What the user asked for (functions.md, RATES.SAME.P).
+enum class method { automatic, pearson, lr, exact, exact_lr, exact_prob, monte_carlo };
+
+// What was actually computed.
+enum class route { pearson, lr, exact, monte_carlo, all_alike };
+
+// Fixed default seed: same result at every recalculation and on every machine.
+inline constexpr std::uint64_t default_seed = 20260101;
+inline constexpr std::int64_t default_draws = 100000;
+
+// Hard caps on user-requested work (Err:523 past them) and the share of the
+// 250 ms budget that the automatic route may spend on each attempt. Work is
+// counted in deterministic units (see exact.cpp and monte_carlo.cpp), never in
+// seconds, so that the route chosen depends on the inputs only.
+struct limits {
+    std::uint64_t exact_work = 400'000'000;     // about 2 s of enumeration, for "exact" asked by name
+    std::uint64_t auto_exact_work = 20'000'000;  // about 100 ms
+    std::int64_t max_draws = 10'000'000;
+    std::uint64_t monte_carlo_work = 300'000'000;  // variates drawn plus table entries built
+    std::uint64_t auto_monte_carlo_work = 12'000'000;
+    std::size_t max_buckets = 1'000'000;  // live partial values in one level of the exact DP
+};
+
+struct options {
+    method how = method::automatic;
+    std::int64_t draws = default_draws;
+    std::uint64_t seed = default_seed;
+    unsigned threads = 1;  // Monte Carlo only; the result does not depend on it
+    limits caps{};
+};
+
+// The groups with attempts, as the table the tests work on.
+struct table {
+    std::vector<std::int64_t> x;  // successes per group
+    std::vector<std::int64_t> n;  // attempts per group
+    std::int64_t successes = 0;
+    std::int64_t attempts = 0;
+    std::size_t groups() const { return n.size(); }
+};
+// invalid_input unless at least two groups have attempts.
+table table_of(const counts& c);
+
+struct expected_summary {
+    double smallest = 0;           // smallest expected count over the 2 x G cells
+    std::size_t below_five = 0;    // cells with expected count < 5
+    std::size_t cells = 0;         // 2 x G
+};
+expected_summary expected_counts(const table& t);
+
+// The observed statistic: X^2, G^2, or for ordering::probability the
+// probability of the observed table under the hypothesis of one shared rate.
+double statistic(const table& t, ordering o);
+
+struct exact_outcome {
+    double p = 0;        // exact p-value (ties within relative 1e-7 count as extreme)
+    double p_low = 0;    // certified bounds on it: they differ only when partial
+    double p_high = 0;   //   statistic values were merged on a coarse grid
+    std::uint64_t work = 0;
+    bool complete = false;  // false: the work cap was reached; nothing else is valid
+    std::string stopped;    // why it stopped, when not complete
+};
+// Exact conditional p-value. `merge_width` is the relative width within which
+// partial statistic values are merged: 1e-9 gives the exact answer, a coarse
+// width gives certified bounds at lower cost.
+exact_outcome exact_p(const table& t, ordering o, std::uint64_t work_cap, std::size_t max_buckets,
+                      double merge_width = 1e-9);
+
+struct monte_carlo_outcome {
+    std::int64_t draws = 0;
+    std::int64_t extreme = 0;  // simulated tables at least as extreme as observed
+    double p = 0;              // (1 + extreme) / (draws + 1)
+    double standard_error = 0;
+    double low = 0, high = 0;  // 95% Clopper-Pearson interval for the exact p-value
+    std::uint64_t work = 0;
+};
+// Throws budget_exceeded when draws exceed the caps.
+monte_carlo_outcome monte_carlo_p(const table& t, ordering o, std::int64_t draws, std::uint64_t seed,
+                                  unsigned threads, std::uint64_t work_cap);
+
+struct result {
+    method requested = method::automatic;
+    route used = route::pearson;
+    ordering order = ordering::pearson;
+    double statistic = 0;
+    int df = 0;
+    double p = 1;
+    std::string why;  // one sentence: why this route
+    expected_summary expected;
+    bool has_monte_carlo = false;
+    monte_carlo_outcome mc;
+    bool has_exact = false;
+    exact_outcome exact;
+};
+
+// The whole analysis for RATES.SAME.P / RATES.SAME.REPORT. Throws
+// invalid_input, or budget_exceeded when a requested route does not fit.
+result same_rates(const counts& c, const options& opt);
+
+// Which route "auto" takes and why, without computing the p-value beyond what
+// the choice needs (used by RATES.CHECK).
+std::string auto_route_advice(const counts& c);
+
+// ---- Trend (Cochran 1954; Armitage 1955) ----
+enum class trend_variance {
+    binomial,    // Armitage 1955: p(1-p) * sum n (s - mean s)^2
+    conditional  // hypergeometric, the N/(N-1) form (Agresti 2002, section 5.3.5)
+};
+struct trend_result {
+    double z = 0;   // signed: positive when the rate rises with the score
+    double chi2 = 0;
+    double p = 1;   // two-sided
+};
+// `scores` has one entry per position of the range (blank rows' entries are
+// ignored); empty means the positions 1, 2, 3, ... themselves.
+trend_result trend(const counts& c, std::span<const entry> scores, trend_variance v);
+
+}  // namespace tallyrates::omnibus

@@ -1,0 +1,29 @@
+// check.cpp - the RATES.CHECK sentence: the first problem with its position, or
+// "ok" with the group count, total attempts, smallest expected count and the
+// route the automatic omnibus test takes (functions.md, "Checks").
+#include "tallyrates/check.hpp"
+
+#include "tallyrates/errors.hpp"
+#include "tallyrates/omnibus.hpp"
+
+namespace tallyrates {
+
+std::string check_text(std::span<const entry> successes, std::span<const entry> attempts) {
+    counts c;
+    try {
+        c = counts::from_entries(successes, attempts);
+    } catch (const invalid_input& e) {
+        return std::string("problem: ") + e.what();
+    }
+    const auto groups = c.with_attempts();
+    std::string text = "ok: " + std::to_string(c.groups().size()) + (c.groups().size() == 1 ? " group" : " groups") +
+                       ", " + format_number(static_cast<double>(c.total_attempts())) + " attempts in all";
+    if (groups.size() < c.groups().size())
+        text += " (" + std::to_string(c.groups().size() - groups.size()) + " with no attempts yet, left out of tests)";
+    if (groups.size() < 2) return text + "; at least two groups with attempts are needed to compare rates.";
+    const auto t = omnibus::table_of(c);
+    text += ", smallest expected count " + format_number(omnibus::expected_counts(t).smallest);
+    return text + "; " + omnibus::auto_route_advice(c) + ".";
+}
+
+}  // namespace tallyrates

@@ -1,0 +1,56 @@
+// hypergeometric.cpp - see hypergeometric.hpp for the recurrence and why it
+// uses only + - * /.
+#include "tallyrates/hypergeometric.hpp"
+
+#include <algorithm>
+#include <cmath>
+
+namespace tallyrates::detail {
+
+hypergeometric_support hypergeometric_range(std::int64_t M, std::int64_t K, std::int64_t n) {
+    return {std::max<std::int64_t>(0, n - (M - K)), std::min(n, K)};
+}
+
+hypergeometric_support hypergeometric_pmf(std::int64_t M, std::int64_t K, std::int64_t n, std::vector<double>& pmf,
+                                          double trim) {
+    const auto full = hypergeometric_range(M, K, n);
+    // Mode of the hypergeometric law: floor((n + 1)(K + 1) / (M + 2)), computed
+    // in floating point because the product can pass 2^63 for huge counts.
+    const double mode_real = std::floor(static_cast<double>(n + 1) * static_cast<double>(K + 1) /
+                                        static_cast<double>(M + 2));
+    const std::int64_t mode = std::clamp(static_cast<std::int64_t>(mode_real), full.first, full.last);
+    const double fail = static_cast<double>(M - K - n);
+
+    // Upward from the mode.
+    std::vector<double> up;  // up[i] = w(mode + i)
+    up.push_back(1.0);
+    for (std::int64_t x = mode; x < full.last; ++x) {
+        const double r = (static_cast<double>(K - x) * static_cast<double>(n - x)) /
+                         (static_cast<double>(x + 1) * (fail + static_cast<double>(x + 1)));
+        const double w = up.back() * r;
+        if (w == 0.0 || w < trim) break;
+        up.push_back(w);
+    }
+    // Downward: w(x - 1) = w(x) * x (M - K - n + x) / ((K - x + 1)(n - x + 1)).
+    std::vector<double> down;  // down[i] = w(mode - 1 - i)
+    double w = 1.0;
+    for (std::int64_t x = mode; x > full.first; --x) {
+        w = w * (static_cast<double>(x) * (fail + static_cast<double>(x))) /
+            (static_cast<double>(K - x + 1) * static_cast<double>(n - x + 1));
+        if (w == 0.0 || w < trim) break;
+        down.push_back(w);
+    }
+    const hypergeometric_support kept{mode - static_cast<std::int64_t>(down.size()),
+                                      mode + static_cast<std::int64_t>(up.size()) - 1};
+    pmf.clear();
+    pmf.reserve(down.size() + up.size());
+    for (auto it = down.rbegin(); it != down.rend(); ++it) pmf.push_back(*it);
+    pmf.insert(pmf.end(), up.begin(), up.end());
+    // Fixed summation order (ascending x) keeps the result reproducible.
+    double total = 0.0;
+    for (double v : pmf) total += v;
+    for (double& v : pmf) v /= total;
+    return kept;
+}
+
+}  // namespace tallyrates::detail

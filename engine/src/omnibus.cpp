@@ -1,0 +1,215 @@
+// omnibus.cpp - routes for "all groups share one rate" and the trend test.
+//
+// "auto" (functions.md): the chi-square approximation when every expected
+// count is at least 5 (the usual rule, Cochran 1954, Biometrics 10:417);
+// otherwise the exact conditional test when it completes within a work cap
+// sized to about 100 ms; otherwise Monte Carlo with as many draws (up to the
+// default) as fit a second such cap. Work is counted in deterministic units,
+// so the route taken depends on the counts alone, never on machine speed.
+#include <boost/math/distributions/chi_squared.hpp>
+#include <boost/math/distributions/normal.hpp>
+#include <cmath>
+
+#include "tallyrates/errors.hpp"
+#include "tallyrates/omnibus.hpp"
+
+namespace tallyrates::omnibus {
+
+namespace {
+
+double chi_square_upper(double x, int df) {
+    if (x <= 0) return 1.0;
+    return boost::math::cdf(boost::math::complement(boost::math::chi_squared(df), x));
+}
+
+ordering ordering_of(method m) {
+    switch (m) {
+        case method::lr:
+        case method::exact_lr: return ordering::lr;
+        case method::exact_prob: return ordering::probability;
+        default: return ordering::pearson;
+    }
+}
+
+std::string expected_phrase(const expected_summary& e) {
+    return std::to_string(e.below_five) + " of " + std::to_string(e.cells) +
+           " expected counts are below 5 (smallest " + format_number(e.smallest) + ")";
+}
+
+void fill_exact(result& r, const table& t, ordering o, std::uint64_t cap, const limits& caps) {
+    r.has_exact = true;
+    r.exact = exact_p(t, o, cap, caps.max_buckets);
+}
+
+// Draws that fit the automatic Monte Carlo budget.
+std::int64_t auto_draws(const table& t, std::int64_t asked, const limits& caps) {
+    const auto fit = static_cast<std::int64_t>(caps.auto_monte_carlo_work / (2 * t.groups()));
+    return std::max<std::int64_t>(1000, std::min(asked, fit));
+}
+
+void check_draws(std::int64_t draws, const limits& caps) {
+    if (draws < 1) throw invalid_input("The argument draws must be a whole number of 1 or more.");
+    if (draws > caps.max_draws)
+        throw budget_exceeded("The argument draws (" + format_number(static_cast<double>(draws)) +
+                              ") is above the cap of " + format_number(static_cast<double>(caps.max_draws)) + ".");
+}
+
+}  // namespace
+
+result same_rates(const counts& c, const options& opt) {
+    const table t = table_of(c);
+    result r;
+    r.requested = opt.how;
+    r.order = ordering_of(opt.how);
+    r.df = static_cast<int>(t.groups()) - 1;
+    r.expected = expected_counts(t);
+    r.statistic = statistic(t, r.order);
+    check_draws(opt.draws, opt.caps);
+
+    if (t.successes == 0 || t.successes == t.attempts) {
+        r.used = route::all_alike;
+        r.p = 1.0;
+        r.why = t.successes == 0 ? "No attempt succeeded, so every group shows the same rate (0); p = 1 by every route."
+                                 : "Every attempt succeeded, so every group shows the same rate (1); p = 1 by every route.";
+        return r;
+    }
+    switch (opt.how) {
+        case method::pearson:
+        case method::lr:
+            r.used = opt.how == method::pearson ? route::pearson : route::lr;
+            r.p = chi_square_upper(r.statistic, r.df);
+            r.why = "Chi-square approximation with " + std::to_string(r.df) + " degrees of freedom, as asked; " +
+                    expected_phrase(r.expected) + ".";
+            return r;
+        case method::exact:
+        case method::exact_lr:
+        case method::exact_prob:
+            r.used = route::exact;
+            fill_exact(r, t, r.order, opt.caps.exact_work, opt.caps);
+            if (!r.exact.complete) {
+                // Certified bounds on a coarse grid, to say how far off we are.
+                const auto coarse = exact_p(t, r.order, opt.caps.exact_work / 4, opt.caps.max_buckets, 1e-3);
+                std::string bounds;
+                if (coarse.complete)
+                    bounds = "; the exact p-value lies between " + format_number(coarse.p_low) + " and " +
+                             format_number(coarse.p_high);
+                r.exact.p_low = coarse.complete ? coarse.p_low : 0.0;
+                r.exact.p_high = coarse.complete ? coarse.p_high : 1.0;
+                throw budget_exceeded("Exact route refused: " + r.exact.stopped + bounds +
+                                      ". Use method \"montecarlo\" or \"auto\".");
+            }
+            r.p = r.exact.p;
+            r.why = "Exact conditional test, as asked.";
+            return r;
+        case method::monte_carlo:
+            r.used = route::monte_carlo;
+            r.has_monte_carlo = true;
+            r.mc = monte_carlo_p(t, r.order, opt.draws, opt.seed, opt.threads, opt.caps.monte_carlo_work);
+            r.p = r.mc.p;
+            r.why = "Monte Carlo with " + format_number(static_cast<double>(opt.draws)) + " draws and seed " +
+                    format_number(static_cast<double>(opt.seed)) + ", as asked.";
+            return r;
+        case method::automatic:
+            break;
+    }
+    if (r.expected.smallest >= 5.0) {
+        r.used = route::pearson;
+        r.p = chi_square_upper(r.statistic, r.df);
+        r.why = "Every expected count is at least 5 (smallest " + format_number(r.expected.smallest) +
+                "), so the chi-square approximation is used.";
+        return r;
+    }
+    fill_exact(r, t, ordering::pearson, opt.caps.auto_exact_work, opt.caps);
+    if (r.exact.complete) {
+        r.used = route::exact;
+        r.p = r.exact.p;
+        r.why = expected_phrase(r.expected) + ", so the exact conditional test is used.";
+        return r;
+    }
+    r.has_exact = false;
+    const std::int64_t draws = auto_draws(t, opt.draws, opt.caps);
+    try {
+        r.mc = monte_carlo_p(t, ordering::pearson, draws, opt.seed, opt.threads, 4 * opt.caps.auto_monte_carlo_work);
+    } catch (const budget_exceeded& e) {
+        // Counts so large that neither enumeration nor simulation fits, yet an
+        // expected count is small: the approximation is all that is left.
+        r.used = route::pearson;
+        r.p = chi_square_upper(r.statistic, r.df);
+        r.why = expected_phrase(r.expected) + ", but neither the exact test nor Monte Carlo fits the time budget "
+                "for counts this large, so the chi-square approximation is used: treat it with caution.";
+        return r;
+    }
+    r.used = route::monte_carlo;
+    r.has_monte_carlo = true;
+    r.p = r.mc.p;
+    r.why = expected_phrase(r.expected) + " and the exact test does not fit the time budget (" + r.exact.stopped +
+            "), so Monte Carlo with " + format_number(static_cast<double>(draws)) + " draws is used.";
+    return r;
+}
+
+std::string auto_route_advice(const counts& c) {
+    // Runs the automatic route itself, so the advice can never disagree with it.
+    const result r = same_rates(c, options{});
+    if (r.used == route::all_alike) return "every group shows the same rate, so p = 1";
+    if (r.expected.smallest >= 5.0)
+        return "every expected count is at least 5, so method \"auto\" uses the chi-square approximation";
+    const char* taken = r.used == route::exact         ? "the exact conditional test"
+                        : r.used == route::monte_carlo ? "Monte Carlo (the exact test does not fit the time budget)"
+                                                       : "the chi-square approximation (nothing else fits)";
+    return "caution: " + expected_phrase(r.expected) + ", so the chi-square p-value is doubtful; method \"auto\" uses " +
+           taken;
+}
+
+// ---- Trend: Cochran 1954 (Biometrics 10:417), Armitage 1955 (Biometrics 11:375) ----
+// z = sum (s_g - sbar) x_g / sqrt(V), sbar = sum n_g s_g / N,
+// V_binomial = pbar (1 - pbar) sum n_g (s_g - sbar)^2 (Armitage 1955, eq. for
+// chi^2_1 of the regression), V_conditional = V_binomial * N / (N - 1)
+// (hypergeometric variance; Agresti 2002, 5.3.5, gives M^2 = (N - 1) r^2).
+trend_result trend(const counts& c, std::span<const entry> scores, trend_variance v) {
+    const auto groups = c.with_attempts();
+    if (groups.size() < 2)
+        throw invalid_input("At least two groups with attempts are needed for a trend test.");
+    if (!scores.empty() && scores.size() != c.range_size())
+        throw invalid_input("The scores range has " + std::to_string(scores.size()) + " cells but the count ranges " +
+                            std::to_string(c.range_size()) + "; give one score per row.");
+    std::vector<double> s(groups.size());
+    for (std::size_t g = 0; g < groups.size(); ++g) {
+        const std::size_t pos = groups[g].position;
+        if (scores.empty()) {
+            s[g] = static_cast<double>(pos);
+            continue;
+        }
+        const entry& e = scores[pos - 1];
+        if (e.what != entry::kind::number || !std::isfinite(e.value))
+            throw invalid_input("Position " + std::to_string(pos) + " of the range: the score must be a number.", pos);
+        s[g] = e.value;
+    }
+    double N = 0, S = 0, ns = 0;
+    for (std::size_t g = 0; g < groups.size(); ++g) {
+        N += static_cast<double>(groups[g].attempts);
+        S += static_cast<double>(groups[g].successes);
+        ns += static_cast<double>(groups[g].attempts) * s[g];
+    }
+    const double sbar = ns / N, pbar = S / N;
+    double T = 0, ss = 0;
+    for (std::size_t g = 0; g < groups.size(); ++g) {
+        const double d = s[g] - sbar;
+        T += d * static_cast<double>(groups[g].successes);
+        ss += static_cast<double>(groups[g].attempts) * d * d;
+    }
+    if (!(ss > 0)) throw invalid_input("The scores of the groups with attempts are all equal; a trend needs them to differ.");
+    trend_result r;
+    if (S == 0 || S == N) return r;  // every group shows the same rate: no trend, p = 1
+    double var = pbar * (1 - pbar) * ss;
+    if (v == trend_variance::conditional) {
+        if (N < 2) throw invalid_input("The conditional variance needs at least 2 attempts.");
+        var *= N / (N - 1);
+    }
+    r.z = T / std::sqrt(var);
+    r.chi2 = r.z * r.z;
+    r.p = 2 * boost::math::cdf(boost::math::complement(boost::math::normal(), std::fabs(r.z)));
+    if (r.p > 1) r.p = 1;
+    return r;
+}
+
+}  // namespace tallyrates::omnibus

@@ -1,0 +1,42 @@
+// terms.hpp (private) - each ordering statistic is a sum over groups of a term
+// that depends on that group's successes only, once the margins are fixed:
+//   X^2: (x - n S/N)^2 N^2 / (n S F)           (both cells of the column)
+//   G^2: 2 [x ln(x / E) + (n - x) ln((n - x) / E')],  E = n S / N, E' = n F / N
+//   probability: ln C(n, x_obs) - ln C(n, x)     (so the observed total is 0)
+// This additivity is what the exact dynamic programme and the Monte Carlo
+// route rely on: a table's statistic is a sum of table lookups.
+#pragma once
+
+#include <vector>
+
+#include "tallyrates/omnibus.hpp"
+
+namespace tallyrates::omnibus::detail {
+
+// ln C(n, k) by lgamma differences.
+double log_choose(std::int64_t n, std::int64_t k);
+
+// One term: the statistic's share from group g having x successes.
+class term_function {
+public:
+    term_function(const table& t, ordering o);
+    double operator()(std::size_t g, std::int64_t x) const;
+
+private:
+    const table& t_;
+    ordering o_;
+    double N_, S_, F_;
+};
+
+// term[g][x] for x = 0..n_g (callers cap the table sizes first).
+std::vector<std::vector<double>> term_tables(const table& t, ordering o);
+
+// Sum of the observed terms, in group order.
+double observed_total(const table& t, ordering o);
+
+// Tables whose statistic is at least this value count as "as extreme as the
+// observed one": a relative tie tolerance of 1e-7 (methods.md), absolute for
+// the probability ordering, whose observed total is 0 by construction.
+double extreme_threshold(double observed, ordering o);
+
+}  // namespace tallyrates::omnibus::detail

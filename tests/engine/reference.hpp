@@ -1,0 +1,53 @@
+// reference.hpp - reads tests/reference/omnibus.csv, the values computed by
+// tests/reference/generate.py with scipy, statsmodels and an independent
+// rational-arithmetic enumerator. Each row names its source.
+#pragma once
+
+#include <fstream>
+#include <sstream>
+#include <stdexcept>
+#include <string>
+#include <vector>
+
+namespace tallyrates::testing {
+
+struct reference_row {
+    std::string name, quantity, source;
+    std::vector<std::int64_t> successes, attempts;
+    double value = 0;
+};
+
+inline std::vector<std::int64_t> split_ints(const std::string& s) {
+    std::vector<std::int64_t> out;
+    std::istringstream in(s);
+    for (std::int64_t v; in >> v;) out.push_back(v);
+    return out;
+}
+
+// Minimal CSV reader: fields may be quoted, quotes do not nest.
+inline std::vector<std::string> csv_fields(const std::string& line) {
+    std::vector<std::string> f(1);
+    bool quoted = false;
+    for (char c : line) {
+        if (c == '"') quoted = !quoted;
+        else if (c == ',' && !quoted) f.emplace_back();
+        else f.back() += c;
+    }
+    return f;
+}
+
+inline std::vector<reference_row> reference_rows(const std::string& quantity_prefix) {
+    std::ifstream in(TALLYRATES_REFERENCE_DIR "/omnibus.csv");
+    if (!in) throw std::runtime_error("cannot open omnibus.csv");
+    std::vector<reference_row> rows;
+    std::string line;
+    std::getline(in, line);  // header
+    while (std::getline(in, line)) {
+        auto f = csv_fields(line);
+        if (f.size() != 6 || f[3].rfind(quantity_prefix, 0) != 0) continue;
+        rows.push_back({f[0], f[3], f[5], split_ints(f[1]), split_ints(f[2]), std::stod(f[4])});
+    }
+    return rows;
+}
+
+}  // namespace tallyrates::testing
