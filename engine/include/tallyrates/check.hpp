@@ -5,10 +5,14 @@
 #include <string>
 
 #include "tallyrates/counts.hpp"
+#include "tallyrates/omnibus.hpp"
 
 namespace tallyrates {
 
-// Never throws for bad counts: the problem is the answer.
-std::string check_text(std::span<const entry> successes, std::span<const entry> attempts);
+// Never throws for bad counts: the problem is the answer. With `asked` (a
+// method other than auto), also says what that route would do or why it is
+// refused.
+std::string check_text(std::span<const entry> successes, std::span<const entry> attempts,
+                       const omnibus::options* asked = nullptr);
 
 }  // namespace tallyrates
