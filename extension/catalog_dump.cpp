@@ -1,11 +1,22 @@
 // catalog_dump.cpp - prints the function reference (extension/FUNCTIONS.md)
 // from the catalog, so the reference cannot drift from what Calc shows.
 #include <iostream>
+#include <string_view>
 
 #include "catalog.hpp"
 
-int main() {
+int main(int argc, char** argv) {
     using namespace tallyrates::catalog;
+    if (argc > 1 && std::string_view(argv[1]) == "--tsv") {
+        // One line per function: programmatic, display, description, then
+        // argument name and wizard text pairs (for the integration tests).
+        for (const auto& f : functions()) {
+            std::cout << f.programmatic << '\t' << f.display << '\t' << f.description;
+            for (const auto& a : f.arguments) std::cout << '\t' << a.name << '\t' << argument_text(a);
+            std::cout << '\n';
+        }
+        return 0;
+    }
     std::cout << "# tallyrates function reference\n\n"
                  "Generated from extension/catalog.cpp by `catalog_dump`; a test fails when this file and the "
                  "catalog differ.\nCategory in the function wizard: "

@@ -26,6 +26,7 @@
 #include <cmath>
 #include <limits>
 
+#include "tallyrates/errors.hpp"
 #include "tallyrates/hypergeometric.hpp"
 #include "tallyrates/omnibus.hpp"
 #include "terms.hpp"
@@ -45,7 +46,9 @@ double bounds_work(const table& t) {
     for (std::size_t k = 0; k < t.groups(); ++k) {
         const double lo = std::max<double>(0, static_cast<double>(S) - (static_cast<double>(N) - placed));
         const double hi = std::min<double>(static_cast<double>(S), placed);
-        work += (hi - lo + 1) * (static_cast<double>(t.n[k]) + 1);
+        // x ranges over at most min(n_k, S, N - S) + 1 values at each node.
+        const double xs = std::min({static_cast<double>(t.n[k]), static_cast<double>(S), static_cast<double>(N - S)});
+        work += (hi - lo + 1) * (xs + 1);
         placed += static_cast<double>(t.n[k]);
     }
     return work;
@@ -85,7 +88,13 @@ exact_outcome exact_p(const table& t_in, ordering o, std::uint64_t work_cap, std
 
     const std::size_t G = t.groups();
     const std::int64_t S = t.successes, N = t.attempts;
-    const auto terms = detail::term_tables(t, o);
+    std::vector<detail::term_row> terms;
+    try {
+        terms = detail::term_tables(t, o);
+    } catch (const budget_exceeded& e) {
+        out.stopped = e.what();
+        return out;
+    }
     const double observed = detail::observed_total(t, o);
     const double thr = detail::extreme_threshold(observed, o);
     const double width = merge_width * std::max(1.0, std::fabs(observed));
@@ -110,7 +119,7 @@ exact_outcome exact_p(const table& t_in, ordering o, std::uint64_t work_cap, std
             const std::int64_t xb = std::min<std::int64_t>(t.n[k], hi[k + 1] - s);
             double mn = std::numeric_limits<double>::infinity(), mx = -mn;
             for (std::int64_t x = xa; x <= xb; ++x) {
-                const double v = terms[k][static_cast<std::size_t>(x)];
+                const double v = terms[k][x];
                 const std::size_t j = static_cast<std::size_t>(s + x - lo[k + 1]);
                 mn = std::min(mn, v + rmin[k + 1][j]);
                 mx = std::max(mx, v + rmax[k + 1][j]);
@@ -139,7 +148,7 @@ exact_outcome exact_p(const table& t_in, ordering o, std::uint64_t work_cap, std
             for (std::int64_t x = sup.first; x <= sup.last; ++x) {
                 const double h = pmf[static_cast<std::size_t>(x - sup.first)];
                 if (h == 0.0) continue;
-                const double v = terms[k][static_cast<std::size_t>(x)];
+                const double v = terms[k][x];
                 const std::size_t j = static_cast<std::size_t>(s + x - lo[k + 1]);
                 // Extreme for sure when lo + v + rmin >= thr; never when hi + v + rmax < thr.
                 const double sure_from = thr - v - rmin[k + 1][j];

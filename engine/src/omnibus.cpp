@@ -41,11 +41,6 @@ void fill_exact(result& r, const table& t, ordering o, std::uint64_t cap, const 
     r.exact = exact_p(t, o, cap, caps.max_buckets);
 }
 
-// Draws that fit the automatic Monte Carlo budget.
-std::int64_t auto_draws(const table& t, std::int64_t asked, const limits& caps) {
-    const auto fit = static_cast<std::int64_t>(caps.auto_monte_carlo_work / (2 * t.groups()));
-    return std::max<std::int64_t>(1000, std::min(asked, fit));
-}
 
 void check_draws(std::int64_t draws, const limits& caps) {
     if (draws < 1) throw invalid_input("The argument draws must be a whole number of 1 or more.");
@@ -127,9 +122,11 @@ result same_rates(const counts& c, const options& opt) {
         return r;
     }
     r.has_exact = false;
-    const std::int64_t draws = auto_draws(t, opt.draws, opt.caps);
+    // At most the draws asked for (default 100,000); fewer when the work cap
+    // is reached first.
+    const std::int64_t draws = opt.draws;
     try {
-        r.mc = monte_carlo_p(t, ordering::pearson, draws, opt.seed, opt.threads, 4 * opt.caps.auto_monte_carlo_work);
+        r.mc = monte_carlo_p(t, ordering::pearson, draws, opt.seed, 1, opt.caps.auto_monte_carlo_work, true);
     } catch (const budget_exceeded& e) {
         // Counts so large that neither enumeration nor simulation fits, yet an
         // expected count is small: the approximation is all that is left.
@@ -143,7 +140,7 @@ result same_rates(const counts& c, const options& opt) {
     r.has_monte_carlo = true;
     r.p = r.mc.p;
     r.why = expected_phrase(r.expected) + " and the exact test does not fit the time budget (" + r.exact.stopped +
-            "), so Monte Carlo with " + format_number(static_cast<double>(draws)) + " draws is used.";
+            "), so Monte Carlo with " + format_number(static_cast<double>(r.mc.draws)) + " draws is used.";
     return r;
 }
 

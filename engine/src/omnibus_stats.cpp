@@ -76,14 +76,23 @@ double term_function::operator()(std::size_t g, std::int64_t x) const {
     return 0.0;
 }
 
-std::vector<std::vector<double>> term_tables(const table& t, ordering o) {
+std::vector<term_row> term_tables(const table& t, ordering o) {
     const term_function term(t, o);
-    std::vector<std::vector<double>> terms(t.groups());
+    const std::int64_t S = t.successes, F = t.attempts - t.successes;
+    double cells = 0;
+    for (auto n : t.n) cells += static_cast<double>(std::min({n, S, F})) + 1;
+    if (cells > 5e7)
+        throw budget_exceeded("The tables of this route would hold " + format_number(cells) +
+                              " values, more than memory allows; counts this large suit the chi-square route.");
+    std::vector<term_row> rows(t.groups());
     for (std::size_t g = 0; g < t.groups(); ++g) {
-        terms[g].resize(static_cast<std::size_t>(t.n[g]) + 1);
-        for (std::int64_t x = 0; x <= t.n[g]; ++x) terms[g][static_cast<std::size_t>(x)] = term(g, x);
+        const std::int64_t n = t.n[g];
+        rows[g].first = std::max<std::int64_t>(0, n - F);
+        const std::int64_t last = std::min(n, S);
+        rows[g].values.reserve(static_cast<std::size_t>(last - rows[g].first + 1));
+        for (std::int64_t x = rows[g].first; x <= last; ++x) rows[g].values.push_back(term(g, x));
     }
-    return terms;
+    return rows;
 }
 
 double observed_total(const table& t, ordering o) {

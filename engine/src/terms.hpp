@@ -28,8 +28,16 @@ private:
     double N_, S_, F_;
 };
 
-// term[g][x] for x = 0..n_g (callers cap the table sizes first).
-std::vector<std::vector<double>> term_tables(const table& t, ordering o);
+// Terms of one group over the successes it can have with these margins,
+// max(0, n - F) .. min(n, S): at most min(n, S, F) + 1 values, so memory
+// stays small even for huge attempt counts.
+struct term_row {
+    std::int64_t first = 0;
+    std::vector<double> values;
+    double operator[](std::int64_t x) const { return values[static_cast<std::size_t>(x - first)]; }
+};
+// budget_exceeded when the rows would pass 50 million values (400 MB).
+std::vector<term_row> term_tables(const table& t, ordering o);
 
 // Sum of the observed terms, in group order.
 double observed_total(const table& t, ordering o);

@@ -40,12 +40,14 @@ inline constexpr std::int64_t default_draws = 100000;
 // counted in deterministic units (see exact.cpp and monte_carlo.cpp), never in
 // seconds, so that the route chosen depends on the inputs only.
 struct limits {
-    std::uint64_t exact_work = 400'000'000;     // about 2 s of enumeration, for "exact" asked by name
-    std::uint64_t auto_exact_work = 20'000'000;  // about 100 ms
+    // Calibrated on this project's 2-core machine (README, benchmarks): about
+    // 30 ns per exact work unit and 8 ns per Monte Carlo unit.
+    std::uint64_t exact_work = 60'000'000;      // about 2 s, for "exact" asked by name
+    std::uint64_t auto_exact_work = 3'000'000;  // about 100 ms
     std::int64_t max_draws = 10'000'000;
-    std::uint64_t monte_carlo_work = 300'000'000;  // variates drawn plus table entries built
-    std::uint64_t auto_monte_carlo_work = 12'000'000;
-    std::size_t max_buckets = 1'000'000;  // live partial values in one level of the exact DP
+    std::uint64_t monte_carlo_work = 1'200'000'000;  // about 10 s, for draws asked by name
+    std::uint64_t auto_monte_carlo_work = 12'000'000;  // about 100 ms
+    std::size_t max_buckets = 1'000'000;  // live partial values in one level of the exact DP (24 MB)
 };
 
 struct options {
@@ -100,9 +102,12 @@ struct monte_carlo_outcome {
     double low = 0, high = 0;  // 95% Clopper-Pearson interval for the exact p-value
     std::uint64_t work = 0;
 };
-// Throws budget_exceeded when draws exceed the caps.
+// Throws budget_exceeded when the draws need more work than work_cap. With
+// fit_to_work, draws is an upper limit instead: drawing stops (at a point
+// fixed by the inputs) once the work reaches the cap, and `draws` in the
+// outcome says how many were made (budget_exceeded below 1,000).
 monte_carlo_outcome monte_carlo_p(const table& t, ordering o, std::int64_t draws, std::uint64_t seed,
-                                  unsigned threads, std::uint64_t work_cap);
+                                  unsigned threads, std::uint64_t work_cap, bool fit_to_work = false);
 
 struct result {
     method requested = method::automatic;

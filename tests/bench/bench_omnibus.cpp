@@ -1,0 +1,106 @@
+// Benchmarks of the omnibus routes (issue targets: exact 2 x 12 under 10 ms at
+// N <= 150 and under 1 s at N <= 500 for each ordering; Monte Carlo at most
+// 1 us per table at N = 5,000; the automatic route never above 250 ms).
+// Figures go into the README; nothing here passes or fails.
+#include <benchmark/benchmark.h>
+
+#include "tallyrates/omnibus.hpp"
+
+using namespace tallyrates;
+using namespace tallyrates::omnibus;
+
+namespace {
+
+// 2 x 12 with equal attempts N / 12 and rates rising gently from 0.40 to 0.62:
+// a table near the middle of its reference distribution, where pruning helps
+// least.
+table twelve_groups(std::int64_t N) {
+    std::vector<std::int64_t> x, n;
+    for (int g = 0; g < 12; ++g) {
+        const std::int64_t ng = N / 12;
+        n.push_back(ng);
+        x.push_back(static_cast<std::int64_t>(static_cast<double>(ng) * (0.40 + 0.02 * g)));
+    }
+    return table_of(counts::from_values(x, n));
+}
+
+void exact(benchmark::State& state, ordering o) {
+    const table t = twelve_groups(state.range(0));
+    std::uint64_t work = 0;
+    for (auto _ : state) {
+        const auto r = exact_p(t, o, 1ull << 40, 1u << 24);
+        work = r.work;
+        benchmark::DoNotOptimize(r.p);
+    }
+    state.counters["work"] = static_cast<double>(work);
+}
+void BM_exact_pearson(benchmark::State& s) { exact(s, ordering::pearson); }
+void BM_exact_lr(benchmark::State& s) { exact(s, ordering::lr); }
+void BM_exact_prob(benchmark::State& s) { exact(s, ordering::probability); }
+BENCHMARK(BM_exact_pearson)->Arg(60)->Arg(150)->Arg(240)->Arg(500)->Unit(benchmark::kMillisecond);
+BENCHMARK(BM_exact_lr)->Arg(60)->Arg(150)->Arg(240)->Arg(500)->Unit(benchmark::kMillisecond);
+BENCHMARK(BM_exact_prob)->Arg(60)->Arg(150)->Arg(240)->Arg(500)->Unit(benchmark::kMillisecond);
+
+void BM_monte_carlo_per_table(benchmark::State& state) {
+    const table t = twelve_groups(state.range(0));
+    const std::int64_t draws = 200000;
+    for (auto _ : state) {
+        const auto r = monte_carlo_p(t, ordering::pearson, draws, default_seed, 1, 1ull << 40);
+        benchmark::DoNotOptimize(r.extreme);
+    }
+    state.SetItemsProcessed(state.iterations() * draws);  // items/s = tables per second
+}
+BENCHMARK(BM_monte_carlo_per_table)->Arg(240)->Arg(5000)->Unit(benchmark::kMillisecond);
+
+// The automatic route on the inputs that make it work hardest: small expected
+// counts where exact is affordable only just, or not at all.
+void BM_auto(benchmark::State& state) {
+    std::vector<std::int64_t> x, n;
+    switch (state.range(0)) {
+        case 0: {  // 2 x 12, N = 500, one tiny group: exact fits or just misses
+            const table t = twelve_groups(500);
+            x = t.x;
+            n = t.n;
+            x[0] = 1;
+            n[0] = 3;
+            break;
+        }
+        case 1:  // tiny group beside huge ones: exact too dear, Monte Carlo
+            x = {3, 40000, 41000, 39000, 40500, 40200, 39900, 40100, 40300, 39800, 40050, 39950};
+            n = {5, 80000, 80000, 80000, 80000, 80000, 80000, 80000, 80000, 80000, 80000, 80000};
+            break;
+        case 2: {  // 2 x 12, N = 1200 with a small group
+            const table t = twelve_groups(1200);
+            x = t.x;
+            n = t.n;
+            x[0] = 2;
+            n[0] = 4;
+            break;
+        }
+        case 3: {  // 2 x 12, N = 3000 with a small group: exact attempt fails, then Monte Carlo
+            const table t = twelve_groups(3000);
+            x = t.x;
+            n = t.n;
+            x[0] = 1;
+            n[0] = 4;
+            break;
+        }
+        default:  // rare defects: N = 120,000, S = 40
+            x = {2, 5, 3, 4, 1, 6, 2, 3, 4, 5, 3, 2};
+            n = {10000, 10000, 10000, 10000, 10000, 10000, 10000, 10000, 10000, 10000, 10000, 10000};
+            break;
+    }
+    const auto c = counts::from_values(x, n);
+    route used = route::pearson;
+    for (auto _ : state) {
+        const auto r = same_rates(c, options{});
+        used = r.used;
+        benchmark::DoNotOptimize(r.p);
+    }
+    state.counters["route"] = static_cast<double>(used);  // 0 pearson, 2 exact, 3 monte carlo
+}
+BENCHMARK(BM_auto)->DenseRange(0, 4)->Unit(benchmark::kMillisecond);
+
+}  // namespace
+
+BENCHMARK_MAIN();
