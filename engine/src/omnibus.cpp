@@ -32,8 +32,8 @@ ordering ordering_of(method m) {
 }
 
 std::string expected_phrase(const expected_summary& e) {
-    return std::to_string(e.below_five) + " of " + std::to_string(e.cells) +
-           " expected counts are below 5 (smallest " + format_number(e.smallest) + ")";
+    return std::to_string(e.below_five) + " of " + std::to_string(e.cells) + " expected counts " +
+           (e.below_five == 1 ? "is" : "are") + " below 5 (smallest " + format_number(e.smallest) + ")";
 }
 
 void fill_exact(result& r, const table& t, ordering o, std::uint64_t cap, const limits& caps) {

@@ -1,0 +1,55 @@
+#!/usr/bin/python3
+"""README command 1, after the build: installs the .oxt into a private
+profile, opens the sample tally workbook in a headless LibreOffice,
+recalculates it with the extension, prints its key cells and writes a PDF.
+
+    /usr/bin/python3 sample-sheets/show.py build/tallyrates.oxt OUTDIR
+"""
+import os
+import shutil
+import sys
+
+HERE = os.path.dirname(os.path.abspath(__file__))
+sys.path.insert(0, os.path.join(HERE, "..", "tests", "office"))
+import lo_session as lo  # noqa: E402
+
+SHEET = os.path.join(HERE, "reflow-oven-trial.fods")
+
+
+def main():
+    oxt, outdir = sys.argv[1], os.path.abspath(sys.argv[2])
+    os.makedirs(outdir, exist_ok=True)
+    office = lo.Office(oxt).install().start()
+    try:
+        work_copy = os.path.join(office.workdir, os.path.basename(SHEET))
+        shutil.copy(SHEET, work_copy)
+        os.chmod(work_copy, 0o644)
+        doc = office.load(work_copy)
+        doc.calculateAll()
+        sheet = doc.Sheets.getByIndex(0)
+        cell = sheet.getCellRangeByName
+        print(cell("A1").getString())
+        print()
+        for r in range(4, 12):
+            row = [cell("%s%d" % (c, r)).getString() for c in "ABCDE"]
+            if any(row):
+                print("  %-24s %15s %11s %10s %20s" % tuple(row))
+        print()
+        for r in list(range(14, 23)) + list(range(25, 36)):
+            label = cell("A%d" % r).getString()
+            shown = lo.cell_text(cell("B%d" % r))
+            if label:
+                print("  %-46s %s" % (label, shown))
+        pdf = os.path.join(office.workdir, "reflow-oven-trial.pdf")
+        lo.save_as(doc, pdf, "calc_pdf_Export")
+        doc.close(True)
+    finally:
+        office.stop()
+    shutil.copy(pdf, os.path.join(outdir, "reflow-oven-trial.pdf"))
+    print()
+    print("PDF written to", os.path.join(outdir, "reflow-oven-trial.pdf"))
+    os._exit(0)
+
+
+if __name__ == "__main__":
+    main()
