@@ -116,7 +116,7 @@ public:
             } catch (const std::exception& e) {
                 return ou(std::string("problem: ") + e.what());
             }
-            return ou(tallyrates::check_text(s, n, &o));
+            return ou(tallyrates::check_text(s, n, &o, &cache_));
         });
     }
 
@@ -124,7 +124,7 @@ public:
                           const Any& seed) override {
         return guarded([&] {
             const auto o = omnibus_options(method, draws, seed);
-            return finite(tallyrates::omnibus::same_rates(counts_of(successes, attempts), o).p);
+            return finite(tallyrates::omnibus::same_rates(counts_of(successes, attempts), o, &cache_).p);
         });
     }
 
@@ -149,7 +149,7 @@ public:
             } catch (const std::exception& e) {
                 return rows_to_array(tallyrates::problem_report(e.what()));
             }
-            return rows_to_array(tallyrates::same_rates_report(s, n, o));
+            return rows_to_array(tallyrates::same_rates_report(s, n, o, &cache_));
         });
     }
 
@@ -223,6 +223,8 @@ private:
 
     std::mutex mutex_;
     css::lang::Locale locale_;
+    // Analyses already made, keyed by their exact inputs (thread-safe).
+    tallyrates::omnibus::result_cache cache_{64};
 };
 
 }  // namespace

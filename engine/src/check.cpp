@@ -9,7 +9,7 @@
 namespace tallyrates {
 
 std::string check_text(std::span<const entry> successes, std::span<const entry> attempts,
-                       const omnibus::options* asked) {
+                       const omnibus::options* asked, omnibus::result_cache* cache) {
     counts c;
     try {
         c = counts::from_entries(successes, attempts);
@@ -24,10 +24,10 @@ std::string check_text(std::span<const entry> successes, std::span<const entry> 
     if (groups.size() < 2) return text + "; at least two groups with attempts are needed to compare rates.";
     const auto t = omnibus::table_of(c);
     text += ", smallest expected count " + format_number(omnibus::expected_counts(t).smallest);
-    text += "; " + omnibus::auto_route_advice(c) + ".";
+    text += "; " + omnibus::auto_route_advice(c, cache) + ".";
     if (asked && asked->how != omnibus::method::automatic) {
         try {
-            text += " The method asked for: " + omnibus::same_rates(c, *asked).why;
+            text += " The method asked for: " + omnibus::same_rates(c, *asked, cache).why;
         } catch (const std::exception& e) {  // invalid_input or budget_exceeded: say it, do not fail
             text += std::string(" The method asked for: ") + e.what();
         }

@@ -51,8 +51,22 @@ void check_draws(std::int64_t draws, const limits& caps) {
 
 }  // namespace
 
-result same_rates(const counts& c, const options& opt) {
+// Every route, without the memo.
+static result same_rates_uncached(const table& t, const options& opt);
+
+result same_rates(const counts& c, const options& opt, result_cache* cache) {
     const table t = table_of(c);
+    analysis_key key;
+    if (cache) {
+        key = {t.x, t.n, opt.how, opt.draws, opt.seed, opt.caps};
+        if (auto hit = cache->find(key)) return *hit;
+    }
+    result r = same_rates_uncached(t, opt);
+    if (cache) cache->put(key, r);
+    return r;
+}
+
+static result same_rates_uncached(const table& t, const options& opt) {
     result r;
     r.requested = opt.how;
     r.order = ordering_of(opt.how);
@@ -83,15 +97,14 @@ result same_rates(const counts& c, const options& opt) {
             fill_exact(r, t, r.order, opt.caps.exact_work, opt.caps);
             if (!r.exact.complete) {
                 // Certified bounds on a coarse grid, to say how far off we are.
-                const auto coarse = exact_p(t, r.order, opt.caps.exact_work / 4, opt.caps.max_buckets, 1e-3);
+                const auto coarse = exact_p(t, r.order, opt.caps.exact_work, opt.caps.max_buckets, 1e-3);
                 std::string bounds;
                 if (coarse.complete)
                     bounds = "; the exact p-value lies between " + format_number(coarse.p_low) + " and " +
                              format_number(coarse.p_high);
-                r.exact.p_low = coarse.complete ? coarse.p_low : 0.0;
-                r.exact.p_high = coarse.complete ? coarse.p_high : 1.0;
-                throw budget_exceeded("Exact route refused: " + r.exact.stopped + bounds +
-                                      ". Use method \"montecarlo\" or \"auto\".");
+                throw exact_refused("Exact route refused: " + r.exact.stopped + bounds +
+                                        ". Use method \"montecarlo\" or \"auto\".",
+                                    coarse.complete, coarse.p_low, coarse.p_high);
             }
             r.p = r.exact.p;
             r.why = "Exact conditional test, as asked.";
@@ -144,9 +157,9 @@ result same_rates(const counts& c, const options& opt) {
     return r;
 }
 
-std::string auto_route_advice(const counts& c) {
+std::string auto_route_advice(const counts& c, result_cache* cache) {
     // Runs the automatic route itself, so the advice can never disagree with it.
-    const result r = same_rates(c, options{});
+    const result r = same_rates(c, options{}, cache);
     if (r.used == route::all_alike) return "every group shows the same rate, so p = 1";
     if (r.expected.smallest >= 5.0)
         return "every expected count is at least 5, so method \"auto\" uses the chi-square approximation";

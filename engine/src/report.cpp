@@ -51,7 +51,7 @@ std::vector<report_row> problem_report(const std::string& problem) {
 }
 
 std::vector<report_row> same_rates_report(std::span<const entry> successes, std::span<const entry> attempts,
-                                          const omnibus::options& opt) {
+                                          const omnibus::options& opt, omnibus::result_cache* cache) {
     counts c;
     omnibus::table t;
     try {
@@ -67,7 +67,15 @@ std::vector<report_row> same_rates_report(std::span<const entry> successes, std:
     rows[7].value = static_cast<double>(e.below_five);
     omnibus::result r;
     try {
-        r = omnibus::same_rates(c, opt);
+        r = omnibus::same_rates(c, opt, cache);
+    } catch (const omnibus::exact_refused& err) {
+        rows[3].value = std::string("none: the exact route does not fit the budget");
+        rows[4].value = std::string(err.what());
+        if (err.has_bounds) {  // certified bounds from a coarse enumeration
+            rows[9].value = err.p_low;
+            rows[10].value = err.p_high;
+        }
+        return rows;
     } catch (const invalid_input& err) {
         rows[3].value = std::string("none: an argument has a problem");
         rows[4].value = std::string(err.what());

@@ -109,6 +109,23 @@ class Routes(SheetCase):
         self.assertEqual(val(4).getString(), "exact conditional")
         self.assertEqual(val(9).getValue(), 0)
 
+    def test_refused_exact_route_reports_certified_bounds(self):
+        # A table whose exact G^2-ordered enumeration needs far more than the
+        # cap (about 5e8 work units against 6e7): Err:523 in the p-value cell,
+        # the report says why and gives bounds from a coarse enumeration.
+        r = self.put_counts([38, 14, 5, 15, 10, 2, 3, 0], [38, 32, 39, 20, 21, 22, 30, 9])
+        self.formula("G1", '=RATES.SAME.P(%s;"exact-lr")' % r)
+        self.assertEqual(self.shown("G1"), "Err:523")
+        self.sheet.getCellRangeByName("D1:E11").setArrayFormula('RATES.SAME.REPORT(%s;"exact-lr")' % r)
+        self.doc.calculateAll()
+        val = lambda k: self.sheet.getCellRangeByName("E%d" % k)
+        self.assertEqual(val(4).getString(), "none: the exact route does not fit the budget")
+        self.assertIn("Exact route refused", val(5).getString())
+        low, high = val(10).getValue(), val(11).getValue()
+        self.assertGreater(low, 0)
+        self.assertLess(low, high)
+        self.assertLess(high, 1e-20)  # far in the tail: the counts differ beyond doubt
+
     def test_report_explains_errors(self):
         r = self.put_counts([2, 3, "many"], [5, 5, 4])
         self.sheet.getCellRangeByName("D1:E11").setArrayFormula("RATES.SAME.REPORT(%s)" % r)

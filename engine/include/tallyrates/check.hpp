@@ -13,6 +13,6 @@ namespace tallyrates {
 // method other than auto), also says what that route would do or why it is
 // refused.
 std::string check_text(std::span<const entry> successes, std::span<const entry> attempts,
-                       const omnibus::options* asked = nullptr);
+                       const omnibus::options* asked = nullptr, omnibus::result_cache* cache = nullptr);
 
 }  // namespace tallyrates

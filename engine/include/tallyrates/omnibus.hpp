@@ -18,7 +18,9 @@
 #include <string>
 #include <vector>
 
+#include "tallyrates/cache.hpp"
 #include "tallyrates/counts.hpp"
+#include "tallyrates/errors.hpp"
 
 namespace tallyrates::omnibus {
 
@@ -48,6 +50,7 @@ struct limits {
     std::uint64_t monte_carlo_work = 1'200'000'000;  // about 10 s, for draws asked by name
     std::uint64_t auto_monte_carlo_work = 12'000'000;  // about 100 ms
     std::size_t max_buckets = 1'000'000;  // live partial values in one level of the exact DP (24 MB)
+    auto operator<=>(const limits&) const = default;
 };
 
 struct options {
@@ -124,13 +127,36 @@ struct result {
     exact_outcome exact;
 };
 
+// The exact route asked for by name did not fit its cap; where a coarse
+// enumeration fitted, the exact p-value is known to lie in [p_low, p_high].
+class exact_refused : public budget_exceeded {
+public:
+    exact_refused(const std::string& message, bool has_bounds, double p_low, double p_high)
+        : budget_exceeded(message), has_bounds(has_bounds), p_low(p_low), p_high(p_high) {}
+    bool has_bounds;
+    double p_low, p_high;
+};
+
+// Memo of analyses keyed by the table and every option that changes the
+// answer (threads does not).
+struct analysis_key {
+    std::vector<std::int64_t> x, n;
+    method how;
+    std::int64_t draws;
+    std::uint64_t seed;
+    limits caps;
+    auto operator<=>(const analysis_key&) const = default;
+};
+using result_cache = lru_cache<analysis_key, result>;
+
 // The whole analysis for RATES.SAME.P / RATES.SAME.REPORT. Throws
-// invalid_input, or budget_exceeded when a requested route does not fit.
-result same_rates(const counts& c, const options& opt);
+// invalid_input, budget_exceeded (exact_refused for the exact route) when a
+// requested route does not fit. With a cache, a repeated question is a lookup.
+result same_rates(const counts& c, const options& opt, result_cache* cache = nullptr);
 
 // Which route "auto" takes and why, without computing the p-value beyond what
 // the choice needs (used by RATES.CHECK).
-std::string auto_route_advice(const counts& c);
+std::string auto_route_advice(const counts& c, result_cache* cache = nullptr);
 
 // ---- Trend (Cochran 1954; Armitage 1955) ----
 enum class trend_variance {

@@ -24,7 +24,7 @@ struct report_row {
 inline constexpr std::size_t same_report_rows = 11;
 
 std::vector<report_row> same_rates_report(std::span<const entry> successes, std::span<const entry> attempts,
-                                          const omnibus::options& opt);
+                                          const omnibus::options& opt, omnibus::result_cache* cache = nullptr);
 // The report for a problem found before the counts were looked at (an
 // argument that could not be read).
 std::vector<report_row> problem_report(const std::string& problem);

@@ -1,0 +1,75 @@
+// The analysis memo: a repeated question is answered from the cache with the
+// very same result; any change of a count or an option is a new question.
+// (Properties of the design, architecture.md "Recalculation"; no outside
+// numbers involved.)
+#include <gtest/gtest.h>
+
+#include <thread>
+
+#include "tallyrates/omnibus.hpp"
+
+using namespace tallyrates;
+using namespace tallyrates::omnibus;
+
+TEST(Cache, RepeatsAreLookupsAndChangesAreNot) {
+    result_cache cache(4);
+    const auto c = counts::from_values(std::vector<std::int64_t>{2, 3, 1, 4}, std::vector<std::int64_t>{5, 5, 4, 6});
+    options o;
+    o.how = method::monte_carlo;
+    o.draws = 5000;
+    const auto a = same_rates(c, o, &cache);
+    EXPECT_EQ(cache.size(), 1u);
+    const auto b = same_rates(c, o, &cache);
+    EXPECT_EQ(cache.size(), 1u);
+    EXPECT_EQ(a.p, b.p);
+    EXPECT_EQ(a.mc.extreme, b.mc.extreme);
+    o.seed = 99;  // another option: another entry
+    same_rates(c, o, &cache);
+    EXPECT_EQ(cache.size(), 2u);
+    const auto c2 = counts::from_values(std::vector<std::int64_t>{2, 3, 1, 5}, std::vector<std::int64_t>{5, 5, 4, 6});
+    EXPECT_NE(same_rates(c2, o, &cache).p, a.p);
+    EXPECT_EQ(cache.size(), 3u);
+    for (std::int64_t d = 1000; d < 1006; ++d) {  // evictions keep the size bounded
+        o.draws = d;
+        same_rates(c, o, &cache);
+    }
+    EXPECT_EQ(cache.size(), 4u);
+}
+
+TEST(Cache, SafeUnderConcurrentUse) {
+    result_cache cache(8);
+    const auto c = counts::from_values(std::vector<std::int64_t>{1, 4, 6}, std::vector<std::int64_t>{6, 7, 8});
+    std::vector<double> seen(4);
+    std::vector<std::thread> threads;
+    for (int k = 0; k < 4; ++k)
+        threads.emplace_back([&, k] {
+            options o;
+            for (int rep = 0; rep < 50; ++rep) seen[k] = same_rates(c, o, &cache).p;
+        });
+    for (auto& t : threads) t.join();
+    for (double p : seen) EXPECT_EQ(p, seen[0]);
+}
+
+TEST(ExactRefused, CarriesCertifiedBounds) {
+    // A 2 x 7 table with unequal groups and a small p-value (about 2.3e-12):
+    // exact needs about 17 million work units, the coarse grid about a
+    // quarter; under a cap of 8 million exact is refused and bounds remain.
+    const std::vector<std::int64_t> n{37, 15, 35, 11, 39, 35, 32}, x{6, 7, 30, 3, 34, 18, 12};
+    options o;
+    o.how = method::exact;
+    o.caps.exact_work = 8'000'000;
+    try {
+        same_rates(counts::from_values(x, n), o);
+        FAIL() << "expected a refusal";
+    } catch (const exact_refused& e) {
+        ASSERT_TRUE(e.has_bounds) << e.what();
+        EXPECT_LE(e.p_low, e.p_high);
+        options full;
+        full.how = method::exact;
+        full.caps.exact_work = 100'000'000;
+        const double p = same_rates(counts::from_values(x, n), full).p;
+        EXPECT_LE(e.p_low, p * (1 + 1e-12));
+        EXPECT_GE(e.p_high, p * (1 - 1e-12));
+        EXPECT_LT(e.p_high - e.p_low, 0.05 * p);  // tight: within 5%
+    }
+}
