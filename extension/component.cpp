@@ -24,6 +24,7 @@
 
 #include <cmath>
 #include <mutex>
+#include <optional>
 
 #include "catalog.hpp"
 #include "convert.hpp"
@@ -100,23 +101,35 @@ Sequence<Sequence<Any>> rows_to_array(const std::vector<tallyrates::report_row>&
     return out;
 }
 
+// The count ranges and omnibus options of one call. RATES.CHECK and
+// RATES.SAME.REPORT answer a problem with a sentence instead of an error, so
+// they read their arguments through this and show what it returns.
+struct omnibus_inputs {
+    std::vector<tallyrates::entry> successes, attempts;
+    tallyrates::omnibus::options options;
+};
+std::optional<std::string> read_inputs(const range& successes, const range& attempts, const Any& method,
+                                       const Any& draws, const Any& seed, omnibus_inputs& in) {
+    try {
+        in.successes = tallyrates::convert::range_entries(successes, "successes");
+        in.attempts = tallyrates::convert::range_entries(attempts, "attempts");
+        in.options = omnibus_options(method, draws, seed);
+    } catch (const std::exception& e) {
+        return std::string(e.what());
+    }
+    return std::nullopt;
+}
+
 class rates final : public cppu::WeakImplHelper4<org::tallyrates::sheet::XRates, css::sheet::XAddIn,
                                                  css::lang::XServiceName, css::lang::XServiceInfo> {
 public:
     // ---- worksheet functions (XRates) ----
     OUString SAL_CALL check(const range& successes, const range& attempts, const Any& method) override {
         return guarded([&] {
-            // RATES.CHECK answers with the problem rather than failing.
-            std::vector<tallyrates::entry> s, n;
-            tallyrates::omnibus::options o;
-            try {
-                s = tallyrates::convert::range_entries(successes, "successes");
-                n = tallyrates::convert::range_entries(attempts, "attempts");
-                o = omnibus_options(method, Any(), Any());
-            } catch (const std::exception& e) {
-                return ou(std::string("problem: ") + e.what());
-            }
-            return ou(tallyrates::check_text(s, n, &o, &cache_));
+            omnibus_inputs in;
+            if (const auto problem = read_inputs(successes, attempts, method, Any(), Any(), in))
+                return ou("problem: " + *problem);
+            return ou(tallyrates::check_text(in.successes, in.attempts, &in.options, &cache_));
         });
     }
 
@@ -140,16 +153,10 @@ public:
     Sequence<Sequence<Any>> SAL_CALL sameReport(const range& successes, const range& attempts, const Any& method,
                                                 const Any& draws, const Any& seed) override {
         return guarded([&] {
-            std::vector<tallyrates::entry> s, n;
-            tallyrates::omnibus::options o;
-            try {
-                s = tallyrates::convert::range_entries(successes, "successes");
-                n = tallyrates::convert::range_entries(attempts, "attempts");
-                o = omnibus_options(method, draws, seed);
-            } catch (const std::exception& e) {
-                return rows_to_array(tallyrates::problem_report(e.what()));
-            }
-            return rows_to_array(tallyrates::same_rates_report(s, n, o, &cache_));
+            omnibus_inputs in;
+            if (const auto problem = read_inputs(successes, attempts, method, draws, seed, in))
+                return rows_to_array(tallyrates::problem_report(*problem));
+            return rows_to_array(tallyrates::same_rates_report(in.successes, in.attempts, in.options, &cache_));
         });
     }
 

@@ -52,44 +52,32 @@ void BM_monte_carlo_per_table(benchmark::State& state) {
 }
 BENCHMARK(BM_monte_carlo_per_table)->Arg(240)->Arg(5000)->Unit(benchmark::kMillisecond);
 
+// twelve_groups(N) with its first group replaced by a small one.
+table with_small_group(std::int64_t N, std::int64_t x0, std::int64_t n0) {
+    table t = twelve_groups(N);
+    t.x[0] = x0;
+    t.n[0] = n0;
+    return t;
+}
+
 // The automatic route on the inputs that make it work hardest: small expected
 // counts where exact is affordable only just, or not at all.
 void BM_auto(benchmark::State& state) {
-    std::vector<std::int64_t> x, n;
+    table t;
     switch (state.range(0)) {
-        case 0: {  // 2 x 12, N = 500, one tiny group: exact fits or just misses
-            const table t = twelve_groups(500);
-            x = t.x;
-            n = t.n;
-            x[0] = 1;
-            n[0] = 3;
+        case 0: t = with_small_group(500, 1, 3); break;    // exact fits
+        case 1:                                            // tiny group beside huge ones
+            t.x = {3, 40000, 41000, 39000, 40500, 40200, 39900, 40100, 40300, 39800, 40050, 39950};
+            t.n = {5, 80000, 80000, 80000, 80000, 80000, 80000, 80000, 80000, 80000, 80000, 80000};
             break;
-        }
-        case 1:  // tiny group beside huge ones: exact too dear, Monte Carlo
-            x = {3, 40000, 41000, 39000, 40500, 40200, 39900, 40100, 40300, 39800, 40050, 39950};
-            n = {5, 80000, 80000, 80000, 80000, 80000, 80000, 80000, 80000, 80000, 80000, 80000};
-            break;
-        case 2: {  // 2 x 12, N = 1200 with a small group
-            const table t = twelve_groups(1200);
-            x = t.x;
-            n = t.n;
-            x[0] = 2;
-            n[0] = 4;
-            break;
-        }
-        case 3: {  // 2 x 12, N = 3000 with a small group: exact attempt fails, then Monte Carlo
-            const table t = twelve_groups(3000);
-            x = t.x;
-            n = t.n;
-            x[0] = 1;
-            n[0] = 4;
-            break;
-        }
-        default:  // rare defects: N = 120,000, S = 40
-            x = {2, 5, 3, 4, 1, 6, 2, 3, 4, 5, 3, 2};
-            n = {10000, 10000, 10000, 10000, 10000, 10000, 10000, 10000, 10000, 10000, 10000, 10000};
+        case 2: t = with_small_group(1200, 2, 4); break;   // exact at its cap
+        case 3: t = with_small_group(3000, 1, 4); break;   // exact attempt fails, then Monte Carlo
+        default:                                           // rare defects: N = 120,000, S = 40
+            t.x = {2, 5, 3, 4, 1, 6, 2, 3, 4, 5, 3, 2};
+            t.n.assign(12, 10000);
             break;
     }
+    const std::vector<std::int64_t> x = t.x, n = t.n;
     const auto c = counts::from_values(x, n);
     route used = route::pearson;
     for (auto _ : state) {

@@ -30,7 +30,9 @@ def _as_profile_owner(cmd, profile):
     env = dict(os.environ, HOME=profile)
     if os.geteuid() == 0:
         cmd = ["setpriv", "--reuid=65534", "--regid=65534", "--clear-groups"] + cmd
-    return subprocess.run(cmd, env=env, capture_output=True, text=True, timeout=300)
+    # The caller's folder may be closed to that user (/root is mode 700 on a
+    # fresh Debian): run from the profile's own folder.
+    return subprocess.run(cmd, env=env, capture_output=True, text=True, timeout=300, cwd=profile)
 
 
 def prop(name, value):
@@ -92,7 +94,7 @@ class Office:
             pre + [PROGRAM + "/soffice", "--headless", "--invisible", "--norestore", "--nologo", "--nodefault",
              "--nolockcheck", "-env:UserInstallation=" + file_url(self.profile),
              "--accept=socket,host=127.0.0.1,port=%d;urp;StarOffice.ComponentContext" % self.port],
-            stdout=self.log, stderr=subprocess.STDOUT, env=dict(os.environ, HOME=self.profile))
+            stdout=self.log, stderr=subprocess.STDOUT, env=dict(os.environ, HOME=self.profile), cwd=self.workdir)
         local = uno.getComponentContext()
         resolver = local.ServiceManager.createInstanceWithContext("com.sun.star.bridge.UnoUrlResolver", local)
         deadline = time.time() + timeout
