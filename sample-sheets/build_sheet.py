@@ -116,6 +116,7 @@ def main():
     with open(out) as f, open(os.path.join(HERE, "reflow-oven-trial.fods"), "w") as g:
         g.write(f.read())
     print("wrote sample-sheets/reflow-oven-trial.fods")
+    sys.stdout.flush()  # os._exit skips the flush of piped output
     os._exit(0)
 
 

@@ -35,11 +35,14 @@ def main():
             if any(row):
                 print("  %-24s %15s %11s %10s %20s" % tuple(row))
         print()
+        errors = []
         for r in list(range(14, 23)) + list(range(25, 36)):
             label = cell("A%d" % r).getString()
             shown = lo.cell_text(cell("B%d" % r))
             if label:
                 print("  %-46s %s" % (label, shown))
+            if shown.startswith("Err:"):
+                errors.append("B%d" % r)
         pdf = os.path.join(office.workdir, "reflow-oven-trial.pdf")
         lo.save_as(doc, pdf, "calc_pdf_Export")
         doc.close(True)
@@ -48,7 +51,10 @@ def main():
     shutil.copy(pdf, os.path.join(outdir, "reflow-oven-trial.pdf"))
     print()
     print("PDF written to", os.path.join(outdir, "reflow-oven-trial.pdf"))
-    os._exit(0)
+    if errors:  # the extension did not compute these: say so and fail
+        print("ERROR: cells", ", ".join(errors), "show an error instead of a result")
+    sys.stdout.flush()  # os._exit skips the flush of piped output
+    os._exit(1 if errors else 0)
 
 
 if __name__ == "__main__":

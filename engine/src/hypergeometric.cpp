@@ -21,31 +21,30 @@ hypergeometric_support hypergeometric_pmf(std::int64_t M, std::int64_t K, std::i
     const std::int64_t mode = std::clamp(static_cast<std::int64_t>(mode_real), full.first, full.last);
     const double fail = static_cast<double>(M - K - n);
 
-    // Upward from the mode.
-    std::vector<double> up;  // up[i] = w(mode + i)
-    up.push_back(1.0);
-    for (std::int64_t x = mode; x < full.last; ++x) {
-        const double r = (static_cast<double>(K - x) * static_cast<double>(n - x)) /
-                         (static_cast<double>(x + 1) * (fail + static_cast<double>(x + 1)));
-        const double w = up.back() * r;
-        if (w == 0.0 || w < trim) break;
-        up.push_back(w);
-    }
-    // Downward: w(x - 1) = w(x) * x (M - K - n + x) / ((K - x + 1)(n - x + 1)).
-    std::vector<double> down;  // down[i] = w(mode - 1 - i)
+    // Downward first, straight into the output (no temporary buffers: the
+    // Monte Carlo route calls this for many small tables), then reversed:
+    // w(x - 1) = w(x) * x (M - K - n + x) / ((K - x + 1)(n - x + 1)).
+    pmf.clear();
     double w = 1.0;
     for (std::int64_t x = mode; x > full.first; --x) {
         w = w * (static_cast<double>(x) * (fail + static_cast<double>(x))) /
             (static_cast<double>(K - x + 1) * static_cast<double>(n - x + 1));
         if (w == 0.0 || w < trim) break;
-        down.push_back(w);
+        pmf.push_back(w);
     }
-    const hypergeometric_support kept{mode - static_cast<std::int64_t>(down.size()),
-                                      mode + static_cast<std::int64_t>(up.size()) - 1};
-    pmf.clear();
-    pmf.reserve(down.size() + up.size());
-    for (auto it = down.rbegin(); it != down.rend(); ++it) pmf.push_back(*it);
-    pmf.insert(pmf.end(), up.begin(), up.end());
+    const auto below_mode = static_cast<std::int64_t>(pmf.size());
+    std::reverse(pmf.begin(), pmf.end());
+    // Then the mode and upward.
+    w = 1.0;
+    pmf.push_back(w);
+    for (std::int64_t x = mode; x < full.last; ++x) {
+        const double r = (static_cast<double>(K - x) * static_cast<double>(n - x)) /
+                         (static_cast<double>(x + 1) * (fail + static_cast<double>(x + 1)));
+        w *= r;
+        if (w == 0.0 || w < trim) break;
+        pmf.push_back(w);
+    }
+    const hypergeometric_support kept{mode - below_mode, mode - below_mode + static_cast<std::int64_t>(pmf.size()) - 1};
     // Fixed summation order (ascending x) keeps the result reproducible.
     double total = 0.0;
     for (double v : pmf) total += v;

@@ -34,11 +34,11 @@ namespace {
 constexpr std::int64_t block_size = 65536;
 constexpr double trim = 1e-20;
 constexpr std::size_t table_memory_cap = 2'000'000;  // doubles cached per thread (16 MB)
-constexpr std::int64_t check_every = 64;            // draws between work-cap checks
 // Measured costs (README benchmarks): about 66 ns per variate drawn from a
 // cached table, 33 ns per table entry built; one unit is about 8 ns.
 constexpr std::uint64_t variate_work = 8;
 constexpr std::uint64_t table_entry_work = 4;
+constexpr std::uint64_t table_work = 24;  // fixed cost of starting a table
 
 struct cdf_ref {
     std::int64_t first = 0;
@@ -47,8 +47,8 @@ struct cdf_ref {
 
 // Lazily built cumulative tables of one worker thread. Tables are indexed by
 // (group, successes already placed) inside a window of +-40 standard
-// deviations of the placed successes around their mean: draws outside it
-// have probability far below 1e-300, and get an uncached table if they occur.
+// deviations of the placed successes around their mean (narrower when there
+// are very many groups): draws outside it get an uncached table.
 class sampler {
 public:
     sampler(const table& t, const std::vector<detail::term_row>& terms) : t_(t), terms_(terms) {
@@ -56,6 +56,8 @@ public:
         lo_.resize(G);
         index_.resize(G);
         const double N = static_cast<double>(t.attempts), S = static_cast<double>(t.successes);
+        // Index memory stays bounded (about 16 MB) however many groups there are.
+        const double half_cap = std::max(64.0, 1e6 / static_cast<double>(G));
         std::int64_t placed = 0;
         for (std::size_t k = 0; k + 1 < G; ++k) {
             const double P = static_cast<double>(placed);
@@ -63,8 +65,9 @@ public:
             const double sd = N > 1 ? std::sqrt(P * (N - P) * S * (N - S) / (N * N * (N - 1))) : 0.0;
             const std::int64_t lo = std::max<std::int64_t>(0, t.successes - (t.attempts - placed));
             const std::int64_t hi = std::min<std::int64_t>(t.successes, placed);
-            lo_[k] = std::max(lo, static_cast<std::int64_t>(std::floor(mean - 40 * sd)) - 2);
-            const std::int64_t top = std::min(hi, static_cast<std::int64_t>(std::ceil(mean + 40 * sd)) + 2);
+            const double half = std::min(40 * sd + 2, half_cap);
+            lo_[k] = std::max(lo, static_cast<std::int64_t>(std::floor(mean - half)));
+            const std::int64_t top = std::min(hi, static_cast<std::int64_t>(std::ceil(mean + half)));
             index_[k].assign(static_cast<std::size_t>(std::max<std::int64_t>(0, top - lo_[k] + 1)), -1);
             placed += t.n[k];
         }
@@ -99,7 +102,7 @@ private:
     void build(std::size_t k, std::int64_t s, std::int64_t placed, std::vector<double>& out, std::int64_t& first) {
         const auto sup = tallyrates::detail::hypergeometric_pmf(t_.attempts - placed, t_.successes - s, t_.n[k],
                                                                 out, trim);
-        work += table_entry_work * out.size();
+        work += table_work + table_entry_work * out.size();
         for (std::size_t i = 1; i < out.size(); ++i) out[i] += out[i - 1];
         const double total = out.back();
         for (double& v : out) v /= total;
@@ -178,8 +181,9 @@ monte_carlo_outcome monte_carlo_p(const table& t, ordering o, std::int64_t draws
                 for (std::int64_t d = b * block_size; d < end; ++d) {
                     extreme[id] += smp.draw(stream) >= thr;
                     ++done[id];
-                    // Checked often, so a runaway request stops within milliseconds.
-                    if ((d + 1) % check_every == 0 && smp.work > work_cap) {
+                    // Checked after every draw (a compare), so a runaway request
+                    // stops within one draw of its cap.
+                    if (smp.work > work_cap) {
                         work[id] = smp.work;
                         return;
                     }

@@ -60,6 +60,7 @@ def main():
         print("ratio RATES.SAME.P / CHISQ.TEST: %.2f" % (results["RATES.SAME.P"] / results["CHISQ.TEST"]))
     finally:
         office.stop()
+    sys.stdout.flush()  # os._exit skips the flush of piped output
     os._exit(0)
 
 

@@ -52,12 +52,13 @@ TEST(Cache, SafeUnderConcurrentUse) {
 
 TEST(ExactRefused, CarriesCertifiedBounds) {
     // A 2 x 7 table with unequal groups and a small p-value (about 2.3e-12):
-    // exact needs about 17 million work units, the coarse grid about a
-    // quarter; under a cap of 8 million exact is refused and bounds remain.
+    // exact needs about 69 million work units, the coarse grid about 16
+    // million; under a cap of 40 million (20 for the coarse pass) exact is
+    // refused and bounds remain.
     const std::vector<std::int64_t> n{37, 15, 35, 11, 39, 35, 32}, x{6, 7, 30, 3, 34, 18, 12};
     options o;
     o.how = method::exact;
-    o.caps.exact_work = 8'000'000;
+    o.caps.exact_work = 40'000'000;
     try {
         same_rates(counts::from_values(x, n), o);
         FAIL() << "expected a refusal";

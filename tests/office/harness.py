@@ -90,4 +90,5 @@ def main():
     failed = len(r.failures) + len(r.errors)
     print("%d passed, %d failed" % (r.testsRun - failed, failed))
     # pyuno clients may crash at exit (addin-recipe.md): leave at once.
+    sys.stdout.flush()  # os._exit skips the flush of piped output
     os._exit(0 if failed == 0 and r.testsRun > 0 else 1)

@@ -111,7 +111,7 @@ class Routes(SheetCase):
 
     def test_refused_exact_route_reports_certified_bounds(self):
         # A table whose exact G^2-ordered enumeration needs far more than the
-        # cap (about 5e8 work units against 6e7): Err:523 in the p-value cell,
+        # cap (about 9e8 work units against 3e8): Err:523 in the p-value cell,
         # the report says why and gives bounds from a coarse enumeration.
         r = self.put_counts([38, 14, 5, 15, 10, 2, 3, 0], [38, 32, 39, 20, 21, 22, 30, 9])
         self.formula("G1", '=RATES.SAME.P(%s;"exact-lr")' % r)

@@ -43,12 +43,12 @@ inline constexpr std::int64_t default_draws = 100000;
 // seconds, so that the route chosen depends on the inputs only.
 struct limits {
     // Calibrated on this project's 2-core machine (README, benchmarks): about
-    // 30 ns per exact work unit and 8 ns per Monte Carlo unit.
-    std::uint64_t exact_work = 60'000'000;      // about 2 s, for "exact" asked by name
-    std::uint64_t auto_exact_work = 3'000'000;  // about 100 ms
+    // 5-7 ns per exact work unit and 8 ns per Monte Carlo unit.
+    std::uint64_t exact_work = 300'000'000;     // about 2 s, for "exact" asked by name
+    std::uint64_t auto_exact_work = 8'000'000;   // about 60 ms
     std::int64_t max_draws = 10'000'000;
     std::uint64_t monte_carlo_work = 1'200'000'000;  // about 10 s, for draws asked by name
-    std::uint64_t auto_monte_carlo_work = 12'000'000;  // about 100 ms
+    std::uint64_t auto_monte_carlo_work = 12'000'000;  // about 100 ms (the two autos stay under 250 ms)
     std::size_t max_buckets = 1'000'000;  // live partial values in one level of the exact DP (24 MB)
     auto operator<=>(const limits&) const = default;
 };
