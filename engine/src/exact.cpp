@@ -134,53 +134,14 @@ exact_outcome exact_p(const table& t_in, ordering o, std::uint64_t work_cap, std
     }
 
     double p_sure = 0.0, p_open = 0.0, p_mid = 0.0;
-    std::vector<std::vector<bucket>> cur(1), next;
-    cur[0].push_back({0.0, 0.0, 1.0});
     std::vector<double> pmf;
     std::vector<double> suffix;  // suffix sums of bucket weights in one node
 
-    for (std::size_t k = 0; k < G; ++k) {
-        next.assign(static_cast<std::size_t>(hi[k + 1] - lo[k + 1] + 1), {});
-        const std::int64_t M = N - placed[k];
-        for (std::int64_t s = lo[k]; s <= hi[k]; ++s) {
-            auto& node = cur[static_cast<std::size_t>(s - lo[k])];
-            if (node.empty()) continue;
-            const auto sup = tallyrates::detail::hypergeometric_pmf(M, S - s, t.n[k], pmf);
-            out.work += pmf.size();
-            suffix.assign(node.size() + 1, 0.0);
-            for (std::size_t b = node.size(); b-- > 0;) suffix[b] = suffix[b + 1] + node[b].w;
-            for (std::int64_t x = sup.first; x <= sup.last; ++x) {
-                const double h = pmf[static_cast<std::size_t>(x - sup.first)];
-                if (h == 0.0) continue;
-                const double v = terms[k][x];
-                const std::size_t j = static_cast<std::size_t>(s + x - lo[k + 1]);
-                // Extreme for sure when lo + v + rmin >= thr; never when hi + v + rmax < thr.
-                const double sure_from = thr - v - rmin[k + 1][j];
-                const double never_below = thr - v - rmax[k + 1][j];
-                // Buckets are sorted by lo, and hi <= lo + width.
-                const auto first_sure = static_cast<std::size_t>(
-                    std::lower_bound(node.begin(), node.end(), sure_from,
-                                     [](const bucket& b, double c) { return b.lo < c; }) -
-                    node.begin());
-                p_sure += h * suffix[first_sure];
-                auto& dst = next[j];
-                for (std::size_t b = 0; b < first_sure; ++b) {
-                    const bucket& src = node[b];
-                    if (src.hi < never_below) continue;
-                    dst.push_back({src.lo + v, src.hi + v, src.w * h});
-                }
-                out.work += first_sure;
-            }
-            if (out.work > work_cap) {
-                out.stopped = "the exact enumeration needs more than " +
-                              format_number(static_cast<double>(work_cap)) + " steps";
-                return out;
-            }
-            std::vector<bucket>().swap(node);
-        }
-        // Merge each node's buckets on the width grid.
+    // Sorts each node's buckets by lo and merges those within `width`,
+    // keeping the union interval. False when memory would pass the cap.
+    auto merge_level = [&](std::vector<std::vector<bucket>>& level) {
         std::size_t live = 0;
-        for (auto& node : next) {
+        for (auto& node : level) {
             if (node.size() > 1) {
                 // Sorting is a large share of the cost: charge m log2 m.
                 out.work += node.size() * static_cast<std::uint64_t>(std::bit_width(node.size()));
@@ -203,14 +164,181 @@ exact_outcome exact_p(const table& t_in, ordering o, std::uint64_t work_cap, std
         if (live > max_buckets) {
             out.stopped = "the exact enumeration needs more than " + format_number(static_cast<double>(max_buckets)) +
                           " partial results in memory at once";
-            return out;
+            return false;
         }
+        return true;
+    };
+    auto over_cap = [&] {
+        if (out.work <= work_cap) return false;
+        out.stopped = "the exact enumeration needs more than " + format_number(static_cast<double>(work_cap)) + " steps";
+        return true;
+    };
+
+    // Meet in the middle: the first `h` groups go forward with pruning, the
+    // others backward without it, and the two halves are joined per split of
+    // the successes. This avoids the growth of the partial-value lists in the
+    // late levels, where most of the cost of a one-way pass lies.
+    const std::size_t h = G / 2;
+
+    // ---- forward over groups 0..h-1 ----
+    std::vector<std::vector<bucket>> cur(1), next;
+    cur[0].push_back({0.0, 0.0, 1.0});
+    for (std::size_t k = 0; k < h; ++k) {
+        next.assign(static_cast<std::size_t>(hi[k + 1] - lo[k + 1] + 1), {});
+        const std::int64_t M = N - placed[k];
+        for (std::int64_t s = lo[k]; s <= hi[k]; ++s) {
+            auto& node = cur[static_cast<std::size_t>(s - lo[k])];
+            if (node.empty()) continue;
+            const auto sup = tallyrates::detail::hypergeometric_pmf(M, S - s, t.n[k], pmf);
+            out.work += pmf.size();
+            suffix.assign(node.size() + 1, 0.0);
+            for (std::size_t b = node.size(); b-- > 0;) suffix[b] = suffix[b + 1] + node[b].w;
+            for (std::int64_t x = sup.first; x <= sup.last; ++x) {
+                const double hx = pmf[static_cast<std::size_t>(x - sup.first)];
+                if (hx == 0.0) continue;
+                const double v = terms[k][x];
+                const std::size_t j = static_cast<std::size_t>(s + x - lo[k + 1]);
+                // Extreme for sure when lo + v + rmin >= thr; never when hi + v + rmax < thr.
+                const double sure_from = thr - v - rmin[k + 1][j];
+                const double never_below = thr - v - rmax[k + 1][j];
+                // Buckets are sorted by lo, and hi <= lo + width.
+                const auto first_sure = static_cast<std::size_t>(
+                    std::lower_bound(node.begin(), node.end(), sure_from,
+                                     [](const bucket& b, double c) { return b.lo < c; }) -
+                    node.begin());
+                p_sure += hx * suffix[first_sure];
+                auto& dst = next[j];
+                for (std::size_t b = 0; b < first_sure; ++b) {
+                    const bucket& src = node[b];
+                    if (src.hi < never_below) continue;
+                    dst.push_back({src.lo + v, src.hi + v, src.w * hx});
+                }
+                out.work += first_sure;
+            }
+            if (over_cap()) return out;
+            std::vector<bucket>().swap(node);
+        }
+        if (!merge_level(next)) return out;
         cur.swap(next);
     }
-    // Level G has the single node s = S; what is left straddles the threshold.
-    for (const auto& b : cur[0]) {
-        p_open += b.w;
-        if (0.5 * (b.lo + b.hi) >= thr) p_mid += b.w;
+
+    // ---- backward over groups G-1..h: marginal law of their successes t ----
+    // Weights are P(x_{G-1}, ..., x_g), the same hypergeometric chain taken
+    // from the other end. Pruning as forward, against bounds that end in the
+    // forward buckets left at the middle (fmin/fmax per node): a backward
+    // bucket extreme with every one of them is kept only as mass (`sure`), one
+    // extreme with none of them is dropped. Forward prefixes already counted
+    // are no longer among those buckets, so nothing is counted twice.
+    const std::size_t R = G - h;  // backward levels
+    std::vector<std::int64_t> blo(R + 1), bhi(R + 1), bused(R + 1, 0);
+    for (std::size_t r = 0; r <= R; ++r) {
+        if (r > 0) bused[r] = bused[r - 1] + t.n[G - r];
+        blo[r] = std::max<std::int64_t>(0, S - (N - bused[r]));
+        bhi[r] = std::min<std::int64_t>(S, bused[r]);
+    }
+    constexpr double inf = std::numeric_limits<double>::infinity();
+    std::vector<std::vector<double>> bmin(R + 1), bmax(R + 1);
+    bmin[R].assign(static_cast<std::size_t>(bhi[R] - blo[R] + 1), inf);
+    bmax[R].assign(bmin[R].size(), -inf);
+    for (std::int64_t tt = blo[R]; tt <= bhi[R]; ++tt) {
+        const std::int64_t s_mid = S - tt;
+        if (s_mid < lo[h] || s_mid > hi[h]) continue;
+        for (const bucket& f : cur[static_cast<std::size_t>(s_mid - lo[h])]) {
+            bmin[R][static_cast<std::size_t>(tt - blo[R])] = std::min(bmin[R][static_cast<std::size_t>(tt - blo[R])], f.lo);
+            bmax[R][static_cast<std::size_t>(tt - blo[R])] = std::max(bmax[R][static_cast<std::size_t>(tt - blo[R])], f.hi);
+        }
+    }
+    for (std::size_t r = R; r-- > 0;) {
+        const std::size_t g = G - 1 - r;
+        bmin[r].assign(static_cast<std::size_t>(bhi[r] - blo[r] + 1), inf);
+        bmax[r].assign(bmin[r].size(), -inf);
+        for (std::int64_t tt = blo[r]; tt <= bhi[r]; ++tt) {
+            const std::int64_t xa = std::max<std::int64_t>(0, blo[r + 1] - tt);
+            const std::int64_t xb = std::min<std::int64_t>(t.n[g], bhi[r + 1] - tt);
+            double mn = inf, mx = -inf;
+            for (std::int64_t x = xa; x <= xb; ++x) {
+                const double v = terms[g][x];
+                const std::size_t j = static_cast<std::size_t>(tt + x - blo[r + 1]);
+                mn = std::min(mn, v + bmin[r + 1][j]);
+                mx = std::max(mx, v + bmax[r + 1][j]);
+            }
+            bmin[r][static_cast<std::size_t>(tt - blo[r])] = mn;
+            bmax[r][static_cast<std::size_t>(tt - blo[r])] = mx;
+        }
+        out.work += static_cast<std::uint64_t>(bhi[r] - blo[r] + 1) * static_cast<std::uint64_t>(t.n[g] + 1);
+    }
+    std::vector<std::vector<bucket>> back(1), back_next;
+    std::vector<double> sure(1, 0.0), sure_next;  // mass extreme whatever the forward half holds
+    back[0].push_back({0.0, 0.0, 1.0});
+    for (std::size_t r = 0; r < R; ++r) {
+        const std::size_t g = G - 1 - r;
+        back_next.assign(static_cast<std::size_t>(bhi[r + 1] - blo[r + 1] + 1), {});
+        sure_next.assign(back_next.size(), 0.0);
+        for (std::int64_t tt = blo[r]; tt <= bhi[r]; ++tt) {
+            auto& node = back[static_cast<std::size_t>(tt - blo[r])];
+            const double node_sure = sure[static_cast<std::size_t>(tt - blo[r])];
+            if (node.empty() && node_sure == 0.0) continue;
+            const auto sup = tallyrates::detail::hypergeometric_pmf(N - bused[r], S - tt, t.n[g], pmf);
+            out.work += pmf.size();
+            suffix.assign(node.size() + 1, 0.0);
+            for (std::size_t b = node.size(); b-- > 0;) suffix[b] = suffix[b + 1] + node[b].w;
+            for (std::int64_t x = sup.first; x <= sup.last; ++x) {
+                const double hx = pmf[static_cast<std::size_t>(x - sup.first)];
+                if (hx == 0.0) continue;
+                const double v = terms[g][x];
+                const std::size_t j = static_cast<std::size_t>(tt + x - blo[r + 1]);
+                const double sure_from = thr - v - bmin[r + 1][j];
+                const double never_below = thr - v - bmax[r + 1][j];
+                const auto first_sure = static_cast<std::size_t>(
+                    std::lower_bound(node.begin(), node.end(), sure_from,
+                                     [](const bucket& b, double c) { return b.lo < c; }) -
+                    node.begin());
+                sure_next[j] += hx * (suffix[first_sure] + node_sure);
+                auto& dst = back_next[j];
+                for (std::size_t b = 0; b < first_sure; ++b) {
+                    const bucket& src = node[b];
+                    if (src.hi < never_below) continue;
+                    dst.push_back({src.lo + v, src.hi + v, src.w * hx});
+                }
+                out.work += first_sure;
+            }
+            if (over_cap()) return out;
+            std::vector<bucket>().swap(node);
+        }
+        if (!merge_level(back_next)) return out;
+        back.swap(back_next);
+        sure.swap(sure_next);
+    }
+    const std::int64_t used = bused[R], t_lo = blo[R], t_hi = bhi[R];
+
+    // ---- join: P(table) = P(first half) P(second half) / P(second half total) ----
+    const auto q_sup = tallyrates::detail::hypergeometric_pmf(N, S, used, pmf);
+    for (std::int64_t s = lo[h]; s <= hi[h]; ++s) {
+        const auto& fwd = cur[static_cast<std::size_t>(s - lo[h])];
+        const std::int64_t tt = S - s;
+        if (fwd.empty() || tt < t_lo || tt > t_hi || tt < q_sup.first || tt > q_sup.last) continue;
+        const auto& bwd = back[static_cast<std::size_t>(tt - t_lo)];
+        const double always = sure[static_cast<std::size_t>(tt - t_lo)];
+        const double q = pmf[static_cast<std::size_t>(tt - q_sup.first)];
+        if ((bwd.empty() && always == 0.0) || q == 0.0) continue;
+        suffix.assign(bwd.size() + 1, 0.0);
+        for (std::size_t b = bwd.size(); b-- > 0;) suffix[b] = suffix[b + 1] + bwd[b].w;
+        auto mass_from = [&](double c) {  // weight of backward buckets with lo >= c
+            const auto i = std::lower_bound(bwd.begin(), bwd.end(), c,
+                                            [](const bucket& b, double v) { return b.lo < v; }) -
+                           bwd.begin();
+            return suffix[static_cast<std::size_t>(i)];
+        };
+        for (const bucket& f : fwd) {
+            const double yes = mass_from(thr - f.lo);                 // lo + lo' >= thr
+            const double maybe = mass_from(thr - f.hi - width);       // hi + hi' may reach thr
+            const double mid = mass_from(thr - 0.5 * (f.lo + f.hi));  // representative values
+            p_sure += f.w * (yes + always) / q;
+            p_open += f.w * (maybe - yes) / q;
+            p_mid += f.w * (mid - yes) / q;
+        }
+        out.work += fwd.size() * 3 * static_cast<std::uint64_t>(std::bit_width(bwd.size()));
+        if (over_cap()) return out;
     }
     out.p_low = std::min(1.0, p_sure);
     out.p_high = std::min(1.0, p_sure + p_open);

@@ -57,13 +57,18 @@ static result same_rates_uncached(const table& t, const options& opt);
 result same_rates(const counts& c, const options& opt, result_cache* cache) {
     const table t = table_of(c);
     analysis_key key;
-    if (cache) {
-        key = {t.x, t.n, opt.how, opt.draws, opt.seed, opt.caps};
-        if (auto hit = cache->find(key)) return *hit;
+    if (!cache) return same_rates_uncached(t, opt);
+    key = {t.x, t.n, opt.how, opt.draws, opt.seed, opt.caps};
+    if (auto hit = cache->results.find(key)) return *hit;
+    if (auto no = cache->refusals.find(key)) throw exact_refused(no->message, no->has_bounds, no->p_low, no->p_high);
+    try {
+        result r = same_rates_uncached(t, opt);
+        cache->results.put(key, r);
+        return r;
+    } catch (const exact_refused& e) {
+        cache->refusals.put(key, {e.what(), e.has_bounds, e.p_low, e.p_high});
+        throw;
     }
-    result r = same_rates_uncached(t, opt);
-    if (cache) cache->put(key, r);
-    return r;
 }
 
 static result same_rates_uncached(const table& t, const options& opt) {
@@ -97,7 +102,7 @@ static result same_rates_uncached(const table& t, const options& opt) {
             fill_exact(r, t, r.order, opt.caps.exact_work, opt.caps);
             if (!r.exact.complete) {
                 // Certified bounds on a coarse grid, to say how far off we are.
-                const auto coarse = exact_p(t, r.order, opt.caps.exact_work / 2, opt.caps.max_buckets, 1e-3);
+                const auto coarse = exact_p(t, r.order, opt.caps.exact_work, opt.caps.max_buckets, 1e-3);
                 std::string bounds;
                 if (coarse.complete)
                     bounds = "; the exact p-value lies between " + format_number(coarse.p_low) + " and " +

@@ -18,22 +18,22 @@ TEST(Cache, RepeatsAreLookupsAndChangesAreNot) {
     o.how = method::monte_carlo;
     o.draws = 5000;
     const auto a = same_rates(c, o, &cache);
-    EXPECT_EQ(cache.size(), 1u);
+    EXPECT_EQ(cache.results.size(), 1u);
     const auto b = same_rates(c, o, &cache);
-    EXPECT_EQ(cache.size(), 1u);
+    EXPECT_EQ(cache.results.size(), 1u);
     EXPECT_EQ(a.p, b.p);
     EXPECT_EQ(a.mc.extreme, b.mc.extreme);
     o.seed = 99;  // another option: another entry
     same_rates(c, o, &cache);
-    EXPECT_EQ(cache.size(), 2u);
+    EXPECT_EQ(cache.results.size(), 2u);
     const auto c2 = counts::from_values(std::vector<std::int64_t>{2, 3, 1, 5}, std::vector<std::int64_t>{5, 5, 4, 6});
     EXPECT_NE(same_rates(c2, o, &cache).p, a.p);
-    EXPECT_EQ(cache.size(), 3u);
+    EXPECT_EQ(cache.results.size(), 3u);
     for (std::int64_t d = 1000; d < 1006; ++d) {  // evictions keep the size bounded
         o.draws = d;
         same_rates(c, o, &cache);
     }
-    EXPECT_EQ(cache.size(), 4u);
+    EXPECT_EQ(cache.results.size(), 4u);
 }
 
 TEST(Cache, SafeUnderConcurrentUse) {
@@ -52,13 +52,12 @@ TEST(Cache, SafeUnderConcurrentUse) {
 
 TEST(ExactRefused, CarriesCertifiedBounds) {
     // A 2 x 7 table with unequal groups and a small p-value (about 2.3e-12):
-    // exact needs about 69 million work units, the coarse grid about 16
-    // million; under a cap of 40 million (20 for the coarse pass) exact is
-    // refused and bounds remain.
+    // exact needs about 11 million work units, the coarse grid about 6
+    // million; under a cap of 8 million exact is refused and bounds remain.
     const std::vector<std::int64_t> n{37, 15, 35, 11, 39, 35, 32}, x{6, 7, 30, 3, 34, 18, 12};
     options o;
     o.how = method::exact;
-    o.caps.exact_work = 40'000'000;
+    o.caps.exact_work = 8'000'000;
     try {
         same_rates(counts::from_values(x, n), o);
         FAIL() << "expected a refusal";
@@ -73,4 +72,16 @@ TEST(ExactRefused, CarriesCertifiedBounds) {
         EXPECT_GE(e.p_high, p * (1 - 1e-12));
         EXPECT_LT(e.p_high - e.p_low, 0.05 * p);  // tight: within 5%
     }
+    // A refusal is remembered: asked again through a cache, the same answer
+    // comes back without the work.
+    result_cache cache;
+    for (int k = 0; k < 2; ++k) {
+        try {
+            same_rates(counts::from_values(x, n), o, &cache);
+            FAIL();
+        } catch (const exact_refused& e) {
+            EXPECT_TRUE(e.has_bounds);
+        }
+    }
+    EXPECT_EQ(cache.refusals.size(), 1u);
 }

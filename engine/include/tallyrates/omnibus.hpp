@@ -147,7 +147,18 @@ struct analysis_key {
     limits caps;
     auto operator<=>(const analysis_key&) const = default;
 };
-using result_cache = lru_cache<analysis_key, result>;
+// Refusals are remembered too: a refused exact run costs up to two work caps,
+// and a sheet asks RATES.SAME.P and RATES.SAME.REPORT the same question.
+struct refusal {
+    std::string message;
+    bool has_bounds = false;
+    double p_low = 0, p_high = 1;
+};
+struct result_cache {
+    explicit result_cache(std::size_t capacity = 64) : results(capacity), refusals(capacity) {}
+    lru_cache<analysis_key, result> results;
+    lru_cache<analysis_key, refusal> refusals;
+};
 
 // The whole analysis for RATES.SAME.P / RATES.SAME.REPORT. Throws
 // invalid_input, budget_exceeded (exact_refused for the exact route) when a
