@@ -57,7 +57,8 @@ static result same_rates_uncached(const table& t, const options& opt);
 result same_rates(const counts& c, const options& opt, result_cache* cache) {
     const table t = table_of(c);
     analysis_key key;
-    if (!cache) return same_rates_uncached(t, opt);
+    // The chi-square routes cost less than a cache lookup: never memoised.
+    if (!cache || opt.how == method::pearson || opt.how == method::lr) return same_rates_uncached(t, opt);
     key = {t.x, t.n, opt.how, opt.draws, opt.seed, opt.caps};
     if (auto hit = cache->results.find(key)) return *hit;
     if (auto no = cache->refusals.find(key)) throw exact_refused(no->message, no->has_bounds, no->p_low, no->p_high);

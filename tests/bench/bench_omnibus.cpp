@@ -4,6 +4,8 @@
 // Figures go into the README; nothing here passes or fails.
 #include <benchmark/benchmark.h>
 
+#include <cmath>
+
 #include "tallyrates/omnibus.hpp"
 
 using namespace tallyrates;
@@ -14,12 +16,12 @@ namespace {
 // 2 x 12 with equal attempts N / 12 and rates rising gently from 0.40 to 0.62:
 // a table near the middle of its reference distribution, where pruning helps
 // least.
-table twelve_groups(std::int64_t N) {
+table twelve_groups(std::int64_t N, double low = 0.40, double step = 0.02) {
     std::vector<std::int64_t> x, n;
     for (int g = 0; g < 12; ++g) {
         const std::int64_t ng = N / 12;
         n.push_back(ng);
-        x.push_back(static_cast<std::int64_t>(static_cast<double>(ng) * (0.40 + 0.02 * g)));
+        x.push_back(static_cast<std::int64_t>(static_cast<double>(ng) * (low + step * g)));
     }
     return table_of(counts::from_values(x, n));
 }
@@ -40,6 +42,28 @@ void BM_exact_prob(benchmark::State& s) { exact(s, ordering::probability); }
 BENCHMARK(BM_exact_pearson)->Arg(60)->Arg(150)->Arg(240)->Arg(500)->Unit(benchmark::kMillisecond);
 BENCHMARK(BM_exact_lr)->Arg(60)->Arg(150)->Arg(240)->Arg(500)->Unit(benchmark::kMillisecond);
 BENCHMARK(BM_exact_prob)->Arg(60)->Arg(150)->Arg(240)->Arg(500)->Unit(benchmark::kMillisecond);
+
+// The same shape far from "one shared rate": rates 0.10, 0.17, ..., 0.83, so
+// the p-value is tiny and pruning has little to cut.
+void exact_far(benchmark::State& state, ordering o) {
+    const table t = twelve_groups(state.range(0), 0.10, 0.8 / 11);
+    std::uint64_t work = 0;
+    double p = 0;
+    for (auto _ : state) {
+        const auto r = exact_p(t, o, 1ull << 40, 1u << 24);
+        work = r.work;
+        p = r.p;
+        benchmark::DoNotOptimize(r.p);
+    }
+    state.counters["work"] = static_cast<double>(work);
+    state.counters["log10p"] = std::log10(p);
+}
+void BM_exact_far_pearson(benchmark::State& s) { exact_far(s, ordering::pearson); }
+void BM_exact_far_lr(benchmark::State& s) { exact_far(s, ordering::lr); }
+void BM_exact_far_prob(benchmark::State& s) { exact_far(s, ordering::probability); }
+BENCHMARK(BM_exact_far_pearson)->Arg(60)->Arg(150)->Arg(240)->Arg(500)->Unit(benchmark::kMillisecond);
+BENCHMARK(BM_exact_far_lr)->Arg(60)->Arg(150)->Arg(240)->Arg(500)->Unit(benchmark::kMillisecond);
+BENCHMARK(BM_exact_far_prob)->Arg(60)->Arg(150)->Arg(240)->Arg(500)->Unit(benchmark::kMillisecond);
 
 void BM_monte_carlo_per_table(benchmark::State& state) {
     const table t = twelve_groups(state.range(0));
