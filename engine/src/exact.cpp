@@ -20,9 +20,16 @@
 // extreme adds its whole probability at once (the completions' conditional
 // probabilities sum to 1), one with no extreme completion is dropped.
 //
+// Meet in the middle (the classic split-and-join of subset sums, Horowitz &
+// Sahni 1974, JACM 21:277, applied to the network): the first half of the
+// groups goes forward, the second half backward, each pruned; the halves are
+// joined per split of the successes with P(table) = P(first half) P(second
+// half) / P(second half's total). A one-way pass spends most of its time in
+// the late levels, where the lists of partial values grow fastest.
+//
 // Work unit: one bucket carried across one value of x, one per support point
 // of each conditional law built, and m log2 m per sort of m buckets (about
-// 10 ns each on this project's machine). The cap makes the cost deterministic.
+// 5-7 ns each on this project's machine). The cap makes the cost deterministic.
 #include <algorithm>
 #include <bit>
 #include <cmath>
@@ -56,6 +63,29 @@ double bounds_work(const table& t, ordering o) {
         placed += static_cast<double>(t.n[k]);
     }
     return work;
+}
+
+// Bounds on what the groups of one level onward can add, from those of the
+// next level: mn[s] = min over x of term(x) + next_mn[s + x] (likewise max).
+// Nodes of level: [lo, hi]; of the next level: [next_lo, next_hi].
+void bounds_level(const detail::term_row& term, std::int64_t n_g, std::int64_t lo, std::int64_t hi,
+                  std::int64_t next_lo, std::int64_t next_hi, const std::vector<double>& next_mn,
+                  const std::vector<double>& next_mx, std::vector<double>& mn, std::vector<double>& mx) {
+    constexpr double inf = std::numeric_limits<double>::infinity();
+    mn.assign(static_cast<std::size_t>(hi - lo + 1), inf);
+    mx.assign(mn.size(), -inf);
+    for (std::int64_t s = lo; s <= hi; ++s) {
+        const std::int64_t xa = std::max<std::int64_t>(0, next_lo - s);
+        const std::int64_t xb = std::min<std::int64_t>(n_g, next_hi - s);
+        double a = inf, b = -inf;
+        for (std::int64_t x = xa; x <= xb; ++x) {
+            const std::size_t j = static_cast<std::size_t>(s + x - next_lo);
+            a = std::min(a, term[x] + next_mn[j]);
+            b = std::max(b, term[x] + next_mx[j]);
+        }
+        mn[static_cast<std::size_t>(s - lo)] = a;
+        mx[static_cast<std::size_t>(s - lo)] = b;
+    }
 }
 
 }  // namespace
@@ -114,24 +144,8 @@ exact_outcome exact_p(const table& t_in, ordering o, std::uint64_t work_cap, std
     std::vector<std::vector<double>> rmin(G + 1), rmax(G + 1);
     rmin[G].assign(1, 0.0);
     rmax[G].assign(1, 0.0);
-    for (std::size_t k = G; k-- > 0;) {
-        const std::size_t width_k = static_cast<std::size_t>(hi[k] - lo[k] + 1);
-        rmin[k].assign(width_k, std::numeric_limits<double>::infinity());
-        rmax[k].assign(width_k, -std::numeric_limits<double>::infinity());
-        for (std::int64_t s = lo[k]; s <= hi[k]; ++s) {
-            const std::int64_t xa = std::max<std::int64_t>(0, lo[k + 1] - s);
-            const std::int64_t xb = std::min<std::int64_t>(t.n[k], hi[k + 1] - s);
-            double mn = std::numeric_limits<double>::infinity(), mx = -mn;
-            for (std::int64_t x = xa; x <= xb; ++x) {
-                const double v = terms[k][x];
-                const std::size_t j = static_cast<std::size_t>(s + x - lo[k + 1]);
-                mn = std::min(mn, v + rmin[k + 1][j]);
-                mx = std::max(mx, v + rmax[k + 1][j]);
-            }
-            rmin[k][static_cast<std::size_t>(s - lo[k])] = mn;
-            rmax[k][static_cast<std::size_t>(s - lo[k])] = mx;
-        }
-    }
+    for (std::size_t k = G; k-- > 0;)
+        bounds_level(terms[k], t.n[k], lo[k], hi[k], lo[k + 1], hi[k + 1], rmin[k + 1], rmax[k + 1], rmin[k], rmax[k]);
 
     double p_sure = 0.0, p_open = 0.0, p_mid = 0.0;
     std::vector<double> pmf;
@@ -174,10 +188,44 @@ exact_outcome exact_p(const table& t_in, ordering o, std::uint64_t work_cap, std
         return true;
     };
 
-    // Meet in the middle: the first `h` groups go forward with pruning, the
-    // others backward without it, and the two halves are joined per split of
-    // the successes. This avoids the growth of the partial-value lists in the
-    // late levels, where most of the cost of a one-way pass lies.
+    // Carries one node's buckets (and its mass already known to be extreme,
+    // `node_sure`) across every x of a group whose conditional law is in
+    // pmf/sup. A bucket whose every completion is extreme becomes mass in
+    // sure_mass(j); one with no extreme completion is dropped; the rest go
+    // to dst[j]. `mn`/`mx` bound what the groups after this one add.
+    auto carry = [&](std::vector<bucket>& node, double node_sure, const detail::term_row& term,
+                     const tallyrates::detail::hypergeometric_support& sup, std::int64_t from, std::int64_t dst_lo,
+                     const std::vector<double>& mn, const std::vector<double>& mx,
+                     std::vector<std::vector<bucket>>& dst, auto&& sure_mass) {
+        out.work += pmf.size();
+        suffix.assign(node.size() + 1, 0.0);
+        for (std::size_t b = node.size(); b-- > 0;) suffix[b] = suffix[b + 1] + node[b].w;
+        for (std::int64_t x = sup.first; x <= sup.last; ++x) {
+            const double hx = pmf[static_cast<std::size_t>(x - sup.first)];
+            if (hx == 0.0) continue;
+            const double v = term[x];
+            const std::size_t j = static_cast<std::size_t>(from + x - dst_lo);
+            // Extreme for sure when lo + v + mn >= thr; never when hi + v + mx < thr.
+            const double sure_from = thr - v - mn[j];
+            const double never_below = thr - v - mx[j];
+            // Buckets are sorted by lo, and hi <= lo + width.
+            const auto first_sure = static_cast<std::size_t>(
+                std::lower_bound(node.begin(), node.end(), sure_from,
+                                 [](const bucket& b, double c) { return b.lo < c; }) -
+                node.begin());
+            sure_mass(j) += hx * (suffix[first_sure] + node_sure);
+            auto& out_node = dst[j];
+            for (std::size_t b = 0; b < first_sure; ++b) {
+                const bucket& src = node[b];
+                if (src.hi < never_below) continue;
+                out_node.push_back({src.lo + v, src.hi + v, src.w * hx});
+            }
+            out.work += first_sure;
+        }
+        std::vector<bucket>().swap(node);
+    };
+
+    // The split: groups 0..h-1 forward, h..G-1 backward.
     const std::size_t h = G / 2;
 
     // ---- forward over groups 0..h-1 ----
@@ -190,33 +238,9 @@ exact_outcome exact_p(const table& t_in, ordering o, std::uint64_t work_cap, std
             auto& node = cur[static_cast<std::size_t>(s - lo[k])];
             if (node.empty()) continue;
             const auto sup = tallyrates::detail::hypergeometric_pmf(M, S - s, t.n[k], pmf);
-            out.work += pmf.size();
-            suffix.assign(node.size() + 1, 0.0);
-            for (std::size_t b = node.size(); b-- > 0;) suffix[b] = suffix[b + 1] + node[b].w;
-            for (std::int64_t x = sup.first; x <= sup.last; ++x) {
-                const double hx = pmf[static_cast<std::size_t>(x - sup.first)];
-                if (hx == 0.0) continue;
-                const double v = terms[k][x];
-                const std::size_t j = static_cast<std::size_t>(s + x - lo[k + 1]);
-                // Extreme for sure when lo + v + rmin >= thr; never when hi + v + rmax < thr.
-                const double sure_from = thr - v - rmin[k + 1][j];
-                const double never_below = thr - v - rmax[k + 1][j];
-                // Buckets are sorted by lo, and hi <= lo + width.
-                const auto first_sure = static_cast<std::size_t>(
-                    std::lower_bound(node.begin(), node.end(), sure_from,
-                                     [](const bucket& b, double c) { return b.lo < c; }) -
-                    node.begin());
-                p_sure += hx * suffix[first_sure];
-                auto& dst = next[j];
-                for (std::size_t b = 0; b < first_sure; ++b) {
-                    const bucket& src = node[b];
-                    if (src.hi < never_below) continue;
-                    dst.push_back({src.lo + v, src.hi + v, src.w * hx});
-                }
-                out.work += first_sure;
-            }
+            carry(node, 0.0, terms[k], sup, s, lo[k + 1], rmin[k + 1], rmax[k + 1], next,
+                  [&](std::size_t) -> double& { return p_sure; });
             if (over_cap()) return out;
-            std::vector<bucket>().swap(node);
         }
         if (!merge_level(next)) return out;
         cur.swap(next);
@@ -250,21 +274,8 @@ exact_outcome exact_p(const table& t_in, ordering o, std::uint64_t work_cap, std
     }
     for (std::size_t r = R; r-- > 0;) {
         const std::size_t g = G - 1 - r;
-        bmin[r].assign(static_cast<std::size_t>(bhi[r] - blo[r] + 1), inf);
-        bmax[r].assign(bmin[r].size(), -inf);
-        for (std::int64_t tt = blo[r]; tt <= bhi[r]; ++tt) {
-            const std::int64_t xa = std::max<std::int64_t>(0, blo[r + 1] - tt);
-            const std::int64_t xb = std::min<std::int64_t>(t.n[g], bhi[r + 1] - tt);
-            double mn = inf, mx = -inf;
-            for (std::int64_t x = xa; x <= xb; ++x) {
-                const double v = terms[g][x];
-                const std::size_t j = static_cast<std::size_t>(tt + x - blo[r + 1]);
-                mn = std::min(mn, v + bmin[r + 1][j]);
-                mx = std::max(mx, v + bmax[r + 1][j]);
-            }
-            bmin[r][static_cast<std::size_t>(tt - blo[r])] = mn;
-            bmax[r][static_cast<std::size_t>(tt - blo[r])] = mx;
-        }
+        bounds_level(terms[g], t.n[g], blo[r], bhi[r], blo[r + 1], bhi[r + 1], bmin[r + 1], bmax[r + 1], bmin[r],
+                     bmax[r]);
         out.work += static_cast<std::uint64_t>(bhi[r] - blo[r] + 1) * static_cast<std::uint64_t>(t.n[g] + 1);
     }
     std::vector<std::vector<bucket>> back(1), back_next;
@@ -279,31 +290,9 @@ exact_outcome exact_p(const table& t_in, ordering o, std::uint64_t work_cap, std
             const double node_sure = sure[static_cast<std::size_t>(tt - blo[r])];
             if (node.empty() && node_sure == 0.0) continue;
             const auto sup = tallyrates::detail::hypergeometric_pmf(N - bused[r], S - tt, t.n[g], pmf);
-            out.work += pmf.size();
-            suffix.assign(node.size() + 1, 0.0);
-            for (std::size_t b = node.size(); b-- > 0;) suffix[b] = suffix[b + 1] + node[b].w;
-            for (std::int64_t x = sup.first; x <= sup.last; ++x) {
-                const double hx = pmf[static_cast<std::size_t>(x - sup.first)];
-                if (hx == 0.0) continue;
-                const double v = terms[g][x];
-                const std::size_t j = static_cast<std::size_t>(tt + x - blo[r + 1]);
-                const double sure_from = thr - v - bmin[r + 1][j];
-                const double never_below = thr - v - bmax[r + 1][j];
-                const auto first_sure = static_cast<std::size_t>(
-                    std::lower_bound(node.begin(), node.end(), sure_from,
-                                     [](const bucket& b, double c) { return b.lo < c; }) -
-                    node.begin());
-                sure_next[j] += hx * (suffix[first_sure] + node_sure);
-                auto& dst = back_next[j];
-                for (std::size_t b = 0; b < first_sure; ++b) {
-                    const bucket& src = node[b];
-                    if (src.hi < never_below) continue;
-                    dst.push_back({src.lo + v, src.hi + v, src.w * hx});
-                }
-                out.work += first_sure;
-            }
+            carry(node, node_sure, terms[g], sup, tt, blo[r + 1], bmin[r + 1], bmax[r + 1], back_next,
+                  [&](std::size_t j) -> double& { return sure_next[j]; });
             if (over_cap()) return out;
-            std::vector<bucket>().swap(node);
         }
         if (!merge_level(back_next)) return out;
         back.swap(back_next);
