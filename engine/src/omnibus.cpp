@@ -41,7 +41,6 @@ void fill_exact(result& r, const table& t, ordering o, std::uint64_t cap, const 
     r.exact = exact_p(t, o, cap, caps.max_buckets);
 }
 
-
 void check_draws(std::int64_t draws, const limits& caps) {
     if (draws < 1) throw invalid_input("The argument draws must be a whole number of 1 or more.");
     if (draws > caps.max_draws)
@@ -56,10 +55,9 @@ static result same_rates_uncached(const table& t, const options& opt);
 
 result same_rates(const counts& c, const options& opt, result_cache* cache) {
     const table t = table_of(c);
-    analysis_key key;
     // The chi-square routes cost less than a cache lookup: never memoised.
     if (!cache || opt.how == method::pearson || opt.how == method::lr) return same_rates_uncached(t, opt);
-    key = {t.x, t.n, opt.how, opt.draws, opt.seed, opt.caps};
+    const analysis_key key{t.x, t.n, opt.how, opt.draws, opt.seed, opt.caps};
     if (auto hit = cache->results.find(key)) return *hit;
     if (auto no = cache->refusals.find(key)) throw exact_refused(no->message, no->has_bounds, no->p_low, no->p_high);
     try {
