@@ -111,9 +111,11 @@ exact_outcome exact_p(const table& t_in, ordering o, std::uint64_t work_cap, std
             t.x[i] = t_in.x[idx[i]];
         }
     }
+    // The set-up alone needs `pre`; the enumeration at least as much again.
     const double pre = bounds_work(t, o);
-    if (pre > static_cast<double>(work_cap)) {
+    if (pre > static_cast<double>(work_cap) / 2) {
         out.work = work_cap;
+        out.too_large = true;
         out.stopped = "the exact enumeration needs more than " + format_number(static_cast<double>(work_cap)) +
                       " steps (the table is too large)";
         return out;
@@ -127,6 +129,7 @@ exact_outcome exact_p(const table& t_in, ordering o, std::uint64_t work_cap, std
         terms = detail::term_tables(t, o);
     } catch (const budget_exceeded& e) {
         out.stopped = e.what();
+        out.too_large = true;
         return out;
     }
     const double observed = detail::observed_total(t, o);

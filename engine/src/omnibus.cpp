@@ -100,8 +100,11 @@ static result same_rates_uncached(const table& t, const options& opt) {
             r.used = route::exact;
             fill_exact(r, t, r.order, opt.caps.exact_work, opt.caps);
             if (!r.exact.complete) {
-                // Certified bounds on a coarse grid, to say how far off we are.
-                const auto coarse = exact_p(t, r.order, opt.caps.exact_work, opt.caps.max_buckets, 1e-3);
+                // Certified bounds on a coarse grid, to say how far off we are
+                // (pointless when the table is too large to start at all).
+                exact_outcome coarse;
+                if (!r.exact.too_large)
+                    coarse = exact_p(t, r.order, opt.caps.exact_work, opt.caps.max_buckets, 1e-3);
                 std::string bounds;
                 if (coarse.complete)
                     bounds = "; the exact p-value lies between " + format_number(coarse.p_low) + " and " +

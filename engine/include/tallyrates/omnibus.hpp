@@ -89,6 +89,7 @@ struct exact_outcome {
     double p_high = 0;   //   statistic values were merged on a coarse grid
     std::uint64_t work = 0;
     bool complete = false;  // false: the work cap was reached; nothing else is valid
+    bool too_large = false;  // stopped before enumerating: no coarser pass can fit either
     std::string stopped;    // why it stopped, when not complete
 };
 // Exact conditional p-value. `merge_width` is the relative width within which
