@@ -26,27 +26,7 @@ table twelve_groups(std::int64_t N, double low = 0.40, double step = 0.02) {
     return table_of(counts::from_values(x, n));
 }
 
-void exact(benchmark::State& state, ordering o) {
-    const table t = twelve_groups(state.range(0));
-    std::uint64_t work = 0;
-    for (auto _ : state) {
-        const auto r = exact_p(t, o, 1ull << 40, 1u << 24);
-        work = r.work;
-        benchmark::DoNotOptimize(r.p);
-    }
-    state.counters["work"] = static_cast<double>(work);
-}
-void BM_exact_pearson(benchmark::State& s) { exact(s, ordering::pearson); }
-void BM_exact_lr(benchmark::State& s) { exact(s, ordering::lr); }
-void BM_exact_prob(benchmark::State& s) { exact(s, ordering::probability); }
-BENCHMARK(BM_exact_pearson)->Arg(60)->Arg(150)->Arg(240)->Arg(500)->Unit(benchmark::kMillisecond);
-BENCHMARK(BM_exact_lr)->Arg(60)->Arg(150)->Arg(240)->Arg(500)->Unit(benchmark::kMillisecond);
-BENCHMARK(BM_exact_prob)->Arg(60)->Arg(150)->Arg(240)->Arg(500)->Unit(benchmark::kMillisecond);
-
-// The same shape far from "one shared rate": rates 0.10, 0.17, ..., 0.83, so
-// the p-value is tiny and pruning has little to cut.
-void exact_far(benchmark::State& state, ordering o) {
-    const table t = twelve_groups(state.range(0), 0.10, 0.8 / 11);
+void run_exact(benchmark::State& state, const table& t, ordering o) {
     std::uint64_t work = 0;
     double p = 0;
     for (auto _ : state) {
@@ -57,6 +37,19 @@ void exact_far(benchmark::State& state, ordering o) {
     }
     state.counters["work"] = static_cast<double>(work);
     state.counters["log10p"] = std::log10(p);
+}
+void exact(benchmark::State& state, ordering o) { run_exact(state, twelve_groups(state.range(0)), o); }
+void BM_exact_pearson(benchmark::State& s) { exact(s, ordering::pearson); }
+void BM_exact_lr(benchmark::State& s) { exact(s, ordering::lr); }
+void BM_exact_prob(benchmark::State& s) { exact(s, ordering::probability); }
+BENCHMARK(BM_exact_pearson)->Arg(60)->Arg(150)->Arg(240)->Arg(500)->Unit(benchmark::kMillisecond);
+BENCHMARK(BM_exact_lr)->Arg(60)->Arg(150)->Arg(240)->Arg(500)->Unit(benchmark::kMillisecond);
+BENCHMARK(BM_exact_prob)->Arg(60)->Arg(150)->Arg(240)->Arg(500)->Unit(benchmark::kMillisecond);
+
+// The same shape far from "one shared rate": rates 0.10, 0.17, ..., 0.83, so
+// the p-value is tiny and pruning has little to cut.
+void exact_far(benchmark::State& state, ordering o) {
+    run_exact(state, twelve_groups(state.range(0), 0.10, 0.8 / 11), o);
 }
 void BM_exact_far_pearson(benchmark::State& s) { exact_far(s, ordering::pearson); }
 void BM_exact_far_lr(benchmark::State& s) { exact_far(s, ordering::lr); }
