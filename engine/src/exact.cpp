@@ -156,6 +156,10 @@ exact_outcome exact_p(const table& t_in, ordering o, std::uint64_t work_cap, std
 
     // Sorts each node's buckets by lo and merges those within `width`,
     // keeping the union interval. False when memory would pass the cap.
+    // Merging is idempotent, so a level that grows past the cap while
+    // it is built is merged early: memory stays near 2 x max_buckets buckets
+    // (this level and the one before).
+    std::size_t pending = 0;  // buckets in the level being built, merged or not
     auto merge_level = [&](std::vector<std::vector<bucket>>& level) {
         std::size_t live = 0;
         for (auto& node : level) {
@@ -178,6 +182,7 @@ exact_outcome exact_p(const table& t_in, ordering o, std::uint64_t work_cap, std
             }
             live += node.size();
         }
+        pending = live;
         if (live > max_buckets) {
             out.stopped = "the exact enumeration needs more than " + format_number(static_cast<double>(max_buckets)) +
                           " partial results in memory at once";
@@ -223,6 +228,7 @@ exact_outcome exact_p(const table& t_in, ordering o, std::uint64_t work_cap, std
                 if (src.hi < never_below) continue;
                 out_node.push_back({src.lo + v, src.hi + v, src.w * hx});
             }
+            pending += first_sure;
             out.work += first_sure;
         }
         std::vector<bucket>().swap(node);
@@ -236,6 +242,7 @@ exact_outcome exact_p(const table& t_in, ordering o, std::uint64_t work_cap, std
     cur[0].push_back({0.0, 0.0, 1.0});
     for (std::size_t k = 0; k < h; ++k) {
         next.assign(static_cast<std::size_t>(hi[k + 1] - lo[k + 1] + 1), {});
+        pending = 0;
         const std::int64_t M = N - placed[k];
         for (std::int64_t s = lo[k]; s <= hi[k]; ++s) {
             auto& node = cur[static_cast<std::size_t>(s - lo[k])];
@@ -243,7 +250,7 @@ exact_outcome exact_p(const table& t_in, ordering o, std::uint64_t work_cap, std
             const auto sup = tallyrates::detail::hypergeometric_pmf(M, S - s, t.n[k], pmf);
             carry(node, 0.0, terms[k], sup, s, lo[k + 1], rmin[k + 1], rmax[k + 1], next,
                   [&](std::size_t) -> double& { return p_sure; });
-            if (over_cap()) return out;
+            if (over_cap() || (pending > max_buckets && !merge_level(next))) return out;
         }
         if (!merge_level(next)) return out;
         cur.swap(next);
@@ -287,6 +294,7 @@ exact_outcome exact_p(const table& t_in, ordering o, std::uint64_t work_cap, std
     for (std::size_t r = 0; r < R; ++r) {
         const std::size_t g = G - 1 - r;
         back_next.assign(static_cast<std::size_t>(bhi[r + 1] - blo[r + 1] + 1), {});
+        pending = 0;
         sure_next.assign(back_next.size(), 0.0);
         for (std::int64_t tt = blo[r]; tt <= bhi[r]; ++tt) {
             auto& node = back[static_cast<std::size_t>(tt - blo[r])];
@@ -295,7 +303,7 @@ exact_outcome exact_p(const table& t_in, ordering o, std::uint64_t work_cap, std
             const auto sup = tallyrates::detail::hypergeometric_pmf(N - bused[r], S - tt, t.n[g], pmf);
             carry(node, node_sure, terms[g], sup, tt, blo[r + 1], bmin[r + 1], bmax[r + 1], back_next,
                   [&](std::size_t j) -> double& { return sure_next[j]; });
-            if (over_cap()) return out;
+            if (over_cap() || (pending > max_buckets && !merge_level(back_next))) return out;
         }
         if (!merge_level(back_next)) return out;
         back.swap(back_next);

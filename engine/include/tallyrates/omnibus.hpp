@@ -49,7 +49,7 @@ struct limits {
     std::int64_t max_draws = 10'000'000;
     std::uint64_t monte_carlo_work = 1'200'000'000;  // about 10 s, for draws asked by name
     std::uint64_t auto_monte_carlo_work = 12'000'000;  // about 100 ms (the two autos stay under 250 ms)
-    std::size_t max_buckets = 1'000'000;  // live partial values in one level of the exact DP (24 MB)
+    std::size_t max_buckets = 600'000;  // live partial values in one level of the exact DP (about 15 MB)
     auto operator<=>(const limits&) const = default;
 };
 
