@@ -3,6 +3,8 @@
 // booleans, text, omitted arguments as VOID, one-cell ranges as 1 x 1.
 #include <gtest/gtest.h>
 
+#include <cmath>
+
 #include <com/sun/star/uno/Any.hxx>
 #include <com/sun/star/uno/Sequence.hxx>
 #include <rtl/ustring.hxx>
@@ -77,4 +79,62 @@ TEST(Convert, OptionalArguments) {
                  invalid_input);
     EXPECT_TRUE(convert::optional_range(Any(), "scores").empty());
     EXPECT_EQ(convert::optional_range(as_any(column({Any(1.0), Any(4.0)})), "scores").size(), 2u);
+}
+
+// Robustness sweep over values of every kind Calc could hand us, and some it
+// should not (ints, nested sequences, ragged rows): the converter answers or
+// throws invalid_input / budget_exceeded, never anything else.
+TEST(Convert, RandomValuesNeverEscapeAsOtherErrors) {
+    std::uint64_t state = 42;
+    auto next = [&] {  // SplitMix64 step, enough for a sweep
+        std::uint64_t z = (state += 0x9e3779b97f4a7c15ULL);
+        z = (z ^ (z >> 30)) * 0xbf58476d1ce4e5b9ULL;
+        z = (z ^ (z >> 27)) * 0x94d049bb133111ebULL;
+        return z ^ (z >> 31);
+    };
+    const double specials[] = {0.0, -0.0, 1.0, -1.0, 0.5, 1e15, 1e300, NAN, INFINITY, -INFINITY, 4503599627370497.0};
+    auto scalar = [&]() -> Any {
+        switch (next() % 7) {
+            case 0: return Any();
+            case 1: return Any(specials[next() % 11]);
+            case 2: return Any(next() % 2 == 0);
+            case 3: return text("");
+            case 4: return text("auto");
+            case 5: return Any(static_cast<sal_Int32>(next() % 100));
+            default: return text("montecarlo ");
+        }
+    };
+    for (int trial = 0; trial < 5000; ++trial) {
+        const sal_Int32 rows = static_cast<sal_Int32>(next() % 4);
+        convert::range r(rows);
+        for (sal_Int32 i = 0; i < rows; ++i) {
+            const sal_Int32 cols = static_cast<sal_Int32>(1 + next() % 3);  // may be ragged
+            Sequence<Any> row(cols);
+            for (sal_Int32 j = 0; j < cols; ++j) row.getArray()[j] = scalar();
+            r.getArray()[i] = row;
+        }
+        const Any whole = (next() % 2) ? Any(r) : scalar();
+        try {
+            convert::range_entries(r, "successes");
+        } catch (const invalid_input&) {
+        }
+        try {
+            convert::optional_number(whole, 0.95, "level");
+        } catch (const invalid_input&) {
+        }
+        try {
+            convert::optional_whole(whole, 5, 1, 1e7, "draws");
+        } catch (const invalid_input&) {
+        } catch (const budget_exceeded&) {
+        }
+        try {
+            convert::optional_keyword(whole, omnibus::method::automatic, keywords::omnibus_method, "method");
+        } catch (const invalid_input&) {
+        }
+        try {
+            convert::optional_range(whole, "scores");
+        } catch (const invalid_input&) {
+        }
+    }
+    SUCCEED();
 }
