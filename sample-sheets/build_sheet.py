@@ -87,6 +87,7 @@ def main():
         check.merge(True)
         check.IsTextWrapped = True
         check.VertJustify = 1  # top
+        cell("A14").VertJustify = 1
         sheet.Rows.getByIndex(13).OptimalHeight = True
         columns = sheet.Columns
         for col, width in zip("ABCDEFGH", [7800, 3000, 2600, 2400, 3800, 2400, 2400, 2400]):
