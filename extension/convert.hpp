@@ -1,6 +1,7 @@
 // convert.hpp - cell values (as Calc passes them through UNO) to plain engine
-// values. The only judgement made here is what kind of cell a value came
-// from; every rule about counts lives in engine/counts.
+// values. The only judgement made here is what kind of value a cell held:
+// every rule about what is allowed, and every message about it, lives in the
+// engine (counts.hpp for count ranges, arguments.hpp for the rest).
 //
 // How Calc passes arguments (addin-recipe.md): ranges declared
 // sequence<sequence<any>> arrive with numbers and booleans as double, text as
@@ -11,41 +12,36 @@
 
 #include <com/sun/star/uno/Any.hxx>
 #include <com/sun/star/uno/Sequence.hxx>
-#include <cstdint>
+#include <optional>
 #include <string>
 #include <vector>
 
-#include "keywords.hpp"
 #include "tallyrates/counts.hpp"
+#include "tallyrates/report.hpp"
 
 namespace tallyrates::convert {
 
 using range = css::uno::Sequence<css::uno::Sequence<css::uno::Any>>;
 
-// One column or one row of cells, in order. invalid_input for a block of
-// several rows and columns.
+// One column or one row of cells, in order (a block of several rows and
+// columns is refused by arguments::not_one_line).
 std::vector<entry> range_entries(const range& cells, const char* argument);
 
 // One cell value. Calc sends booleans as doubles too; a cell styled as
 // boolean cannot be told from 1/0 here, which the count rules accept.
 entry cell_entry(const css::uno::Any& cell);
 
-bool omitted(const css::uno::Any& a);
-
-double optional_number(const css::uno::Any& a, double fallback, const char* argument);
-// A whole number in [low, high].
-std::int64_t optional_whole(const css::uno::Any& a, std::int64_t fallback, double low, double high,
-                            const char* argument);
-std::string optional_text(const css::uno::Any& a, const std::string& fallback, const char* argument);
-
-template <class E, std::size_t K>
-E optional_keyword(const css::uno::Any& a, E fallback, const std::array<keywords::word<E>, K>& words,
-                   const char* argument) {
-    if (omitted(a)) return fallback;
-    return keywords::parse(optional_text(a, "", argument), words, argument);
-}
-
-// An optional range argument (e.g. scores): empty when omitted.
+// Optional arguments: nothing when omitted (or left empty, or a reference to
+// a blank cell given as a one-cell range).
+std::optional<double> number(const css::uno::Any& a, const char* argument);
+std::optional<std::string> word(const css::uno::Any& a, const char* argument);
+// An optional range argument (scores, labels): empty when omitted.
 std::vector<entry> optional_range(const css::uno::Any& a, const char* argument);
+
+// The two count ranges of a call, validated (engine rules, counts.hpp).
+counts counts_of(const range& successes, const range& attempts);
+
+// Label/value rows (RATES.SAME.REPORT) as a two-column array result.
+range to_array(const std::vector<report_row>& rows);
 
 }  // namespace tallyrates::convert

@@ -4,6 +4,7 @@
 #include "tallyrates/check.hpp"
 
 #include "tallyrates/errors.hpp"
+#include "tallyrates/text.hpp"
 #include "tallyrates/omnibus.hpp"
 
 namespace tallyrates {
@@ -28,7 +29,9 @@ std::string check_text(std::span<const entry> successes, std::span<const entry> 
     if (asked && asked->how != omnibus::method::automatic) {
         try {
             text += " The method asked for: " + omnibus::same_rates(c, *asked, cache).why;
-        } catch (const std::exception& e) {  // invalid_input or budget_exceeded: say it, do not fail
+        } catch (const invalid_input& e) {  // say it, do not fail
+            text += std::string(" The method asked for: ") + e.what();
+        } catch (const budget_exceeded& e) {
             text += std::string(" The method asked for: ") + e.what();
         }
     }

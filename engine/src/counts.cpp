@@ -2,20 +2,12 @@
 #include "tallyrates/counts.hpp"
 
 #include <cmath>
-#include <cstdio>
 
+#include "tallyrates/arguments.hpp"
 #include "tallyrates/errors.hpp"
+#include "tallyrates/text.hpp"
 
 namespace tallyrates {
-
-std::string format_number(double v) {
-    char buf[64];
-    if (std::isfinite(v) && v == std::floor(v) && std::fabs(v) < 1e15)
-        std::snprintf(buf, sizeof buf, "%.0f", v);
-    else
-        std::snprintf(buf, sizeof buf, "%.6g", v);
-    return buf;
-}
 
 namespace {
 
@@ -102,12 +94,7 @@ std::vector<group> counts::with_attempts() const {
 }
 
 const group& counts::at_position(double position, const char* argument) const {
-    if (!std::isfinite(position) || position != std::floor(position) || position < 1 ||
-        position > static_cast<double>(range_size_))
-        throw invalid_input(std::string("The argument ") + argument + " (" + format_number(position) +
-                            ") must be a whole position from 1 to " + std::to_string(range_size_) +
-                            ", counting rows of the range.");
-    const auto p = static_cast<std::size_t>(position);
+    const std::size_t p = arguments::position(position, range_size_, argument);
     for (const auto& g : groups_)
         if (g.position == p) return g;
     throw invalid_input(std::string("The argument ") + argument + " names position " + std::to_string(p) +

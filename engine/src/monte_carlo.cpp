@@ -21,11 +21,12 @@
 #include <cmath>
 #include <thread>
 
+#include "detail/hypergeometric.hpp"
+#include "detail/random.hpp"
+#include "detail/terms.hpp"
 #include "tallyrates/errors.hpp"
-#include "tallyrates/hypergeometric.hpp"
 #include "tallyrates/omnibus.hpp"
-#include "tallyrates/random.hpp"
-#include "terms.hpp"
+#include "tallyrates/text.hpp"
 
 namespace tallyrates::omnibus {
 
@@ -63,18 +64,17 @@ public:
             const double P = static_cast<double>(placed);
             const double mean = P * S / N;
             const double sd = N > 1 ? std::sqrt(P * (N - P) * S * (N - S) / (N * N * (N - 1))) : 0.0;
-            const std::int64_t lo = std::max<std::int64_t>(0, t.successes - (t.attempts - placed));
-            const std::int64_t hi = std::min<std::int64_t>(t.successes, placed);
+            const auto feasible = detail::feasible_successes(t.attempts, t.successes, placed);
             const double half = std::min(40 * sd + 2, half_cap);
-            lo_[k] = std::max(lo, static_cast<std::int64_t>(std::floor(mean - half)));
-            const std::int64_t top = std::min(hi, static_cast<std::int64_t>(std::ceil(mean + half)));
+            lo_[k] = std::max(feasible.first, static_cast<std::int64_t>(std::floor(mean - half)));
+            const std::int64_t top = std::min(feasible.last, static_cast<std::int64_t>(std::ceil(mean + half)));
             index_[k].assign(static_cast<std::size_t>(std::max<std::int64_t>(0, top - lo_[k] + 1)), -1);
             placed += t.n[k];
         }
     }
 
     // Statistic of one random table.
-    double draw(random::xoshiro256ss& rng) {
+    double draw(detail::xoshiro256ss& rng) {
         const std::size_t G = t_.groups();
         std::int64_t s = 0, placed = 0;
         double total = 0.0;
@@ -100,7 +100,7 @@ public:
 private:
     // Cumulative probabilities of group k's successes given s placed.
     void build(std::size_t k, std::int64_t s, std::int64_t placed, std::vector<double>& out, std::int64_t& first) {
-        const auto sup = tallyrates::detail::hypergeometric_pmf(t_.attempts - placed, t_.successes - s, t_.n[k],
+        const auto sup = detail::hypergeometric_pmf(t_.attempts - placed, t_.successes - s, t_.n[k],
                                                                 out, trim);
         work += table_work + table_entry_work * out.size();
         for (std::size_t i = 1; i < out.size(); ++i) out[i] += out[i - 1];
@@ -157,7 +157,7 @@ monte_carlo_outcome monte_carlo_p(const table& t, ordering o, std::int64_t draws
         throw budget_exceeded("Monte Carlo with " + format_number(static_cast<double>(draws)) + " draws over " +
                               std::to_string(t.groups()) + " groups needs " + format_number(planned) +
                               " steps, more than the cap of " + format_number(static_cast<double>(work_cap)) + ".");
-    if (t.successes == 0 || t.successes == t.attempts) {
+    if (t.all_alike()) {
         // Only one table has these margins: every draw equals the observed one.
         out.extreme = draws;
     } else {
@@ -172,11 +172,11 @@ monte_carlo_outcome monte_carlo_p(const table& t, ordering o, std::int64_t draws
         std::vector<std::uint64_t> work(threads, 0);
         auto worker = [&](unsigned id) {
             sampler smp(t, terms);
-            random::xoshiro256ss rng(seed);
+            detail::xoshiro256ss rng(seed);
             std::int64_t at = 0;  // jumps applied to rng
             for (std::int64_t b = id; b < blocks; b += threads) {
                 for (; at < b; ++at) rng.jump();
-                random::xoshiro256ss stream = rng;
+                detail::xoshiro256ss stream = rng;
                 const std::int64_t end = std::min(draws, (b + 1) * block_size);
                 for (std::int64_t d = b * block_size; d < end; ++d) {
                     extreme[id] += smp.draw(stream) >= thr;

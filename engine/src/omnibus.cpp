@@ -7,11 +7,12 @@
 // default) as fit a second such cap. Work is counted in deterministic units,
 // so the route taken depends on the counts alone, never on machine speed.
 #include <boost/math/distributions/chi_squared.hpp>
-#include <boost/math/distributions/normal.hpp>
 #include <cmath>
 
+#include "tallyrates/arguments.hpp"
 #include "tallyrates/errors.hpp"
 #include "tallyrates/omnibus.hpp"
+#include "tallyrates/text.hpp"
 
 namespace tallyrates::omnibus {
 
@@ -42,10 +43,7 @@ void fill_exact(result& r, const table& t, ordering o, std::uint64_t cap, const 
 }
 
 void check_draws(std::int64_t draws, const limits& caps) {
-    if (draws < 1) throw invalid_input("The argument draws must be a whole number of 1 or more.");
-    if (draws > caps.max_draws)
-        throw budget_exceeded("The argument draws (" + format_number(static_cast<double>(draws)) +
-                              ") is above the cap of " + format_number(static_cast<double>(caps.max_draws)) + ".");
+    arguments::whole(static_cast<double>(draws), 1, static_cast<double>(caps.max_draws), "draws");
 }
 
 }  // namespace
@@ -79,7 +77,7 @@ static result same_rates_uncached(const table& t, const options& opt) {
     r.statistic = statistic(t, r.order);
     check_draws(opt.draws, opt.caps);
 
-    if (t.successes == 0 || t.successes == t.attempts) {
+    if (t.all_alike()) {
         r.used = route::all_alike;
         r.p = 1.0;
         r.why = t.successes == 0 ? "No attempt succeeded, so every group shows the same rate (0); p = 1 by every route."
@@ -175,58 +173,6 @@ std::string auto_route_advice(const counts& c, result_cache* cache) {
                                                        : "the chi-square approximation (nothing else fits)";
     return "caution: " + expected_phrase(r.expected) + ", so the chi-square p-value is doubtful; method \"auto\" uses " +
            taken;
-}
-
-// ---- Trend: Cochran 1954 (Biometrics 10:417), Armitage 1955 (Biometrics 11:375) ----
-// z = sum (s_g - sbar) x_g / sqrt(V), sbar = sum n_g s_g / N,
-// V_binomial = pbar (1 - pbar) sum n_g (s_g - sbar)^2 (Armitage 1955, eq. for
-// chi^2_1 of the regression), V_conditional = V_binomial * N / (N - 1)
-// (hypergeometric variance; Agresti 2002, 5.3.5, gives M^2 = (N - 1) r^2).
-trend_result trend(const counts& c, std::span<const entry> scores, trend_variance v) {
-    const auto groups = c.with_attempts();
-    if (groups.size() < 2)
-        throw invalid_input("At least two groups with attempts are needed for a trend test.");
-    if (!scores.empty() && scores.size() != c.range_size())
-        throw invalid_input("The scores range has " + std::to_string(scores.size()) + " cells but the count ranges " +
-                            std::to_string(c.range_size()) + "; give one score per row.");
-    std::vector<double> s(groups.size());
-    for (std::size_t g = 0; g < groups.size(); ++g) {
-        const std::size_t pos = groups[g].position;
-        if (scores.empty()) {
-            s[g] = static_cast<double>(pos);
-            continue;
-        }
-        const entry& e = scores[pos - 1];
-        if (e.what != entry::kind::number || !std::isfinite(e.value))
-            throw invalid_input("Position " + std::to_string(pos) + " of the range: the score must be a number.", pos);
-        s[g] = e.value;
-    }
-    double N = 0, S = 0, ns = 0;
-    for (std::size_t g = 0; g < groups.size(); ++g) {
-        N += static_cast<double>(groups[g].attempts);
-        S += static_cast<double>(groups[g].successes);
-        ns += static_cast<double>(groups[g].attempts) * s[g];
-    }
-    const double sbar = ns / N, pbar = S / N;
-    double T = 0, ss = 0;
-    for (std::size_t g = 0; g < groups.size(); ++g) {
-        const double d = s[g] - sbar;
-        T += d * static_cast<double>(groups[g].successes);
-        ss += static_cast<double>(groups[g].attempts) * d * d;
-    }
-    if (!(ss > 0)) throw invalid_input("The scores of the groups with attempts are all equal; a trend needs them to differ.");
-    trend_result r;
-    if (S == 0 || S == N) return r;  // every group shows the same rate: no trend, p = 1
-    double var = pbar * (1 - pbar) * ss;
-    if (v == trend_variance::conditional) {
-        if (N < 2) throw invalid_input("The conditional variance needs at least 2 attempts.");
-        var *= N / (N - 1);
-    }
-    r.z = T / std::sqrt(var);
-    r.chi2 = r.z * r.z;
-    r.p = 2 * boost::math::cdf(boost::math::complement(boost::math::normal(), std::fabs(r.z)));
-    if (r.p > 1) r.p = 1;
-    return r;
 }
 
 }  // namespace tallyrates::omnibus

@@ -2,6 +2,7 @@
 #include "tallyrates/pairwise.hpp"
 
 #include "tallyrates/errors.hpp"
+#include "tallyrates/text.hpp"
 
 namespace tallyrates::pairwise {
 

@@ -2,6 +2,7 @@
 #include "tallyrates/report.hpp"
 
 #include "tallyrates/errors.hpp"
+#include "tallyrates/text.hpp"
 
 namespace tallyrates {
 
@@ -68,7 +69,7 @@ std::vector<report_row> same_rates_report(std::span<const entry> successes, std:
     omnibus::result r;
     try {
         r = omnibus::same_rates(c, opt, cache);
-    } catch (const omnibus::exact_refused& err) {
+    } catch (const exact_refused& err) {
         rows[3].value = std::string("none: the exact route does not fit the budget");
         rows[4].value = std::string(err.what());
         if (err.has_bounds) {  // certified bounds from a coarse enumeration

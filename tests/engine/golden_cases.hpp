@@ -9,6 +9,7 @@
 
 #include "tallyrates/errors.hpp"
 #include "tallyrates/omnibus.hpp"
+#include "tallyrates/trend.hpp"
 
 namespace tallyrates::testing {
 
@@ -87,8 +88,8 @@ inline std::vector<std::string> golden_lines() {
                                         std::pair{"montecarlo", method::monte_carlo}})
             out.push_back(golden_line(g, what, how));
         const auto c = counts::from_values(g.x, g.n);
-        for (const auto v : {omnibus::trend_variance::binomial, omnibus::trend_variance::conditional}) {
-            const auto r = omnibus::trend(c, {}, v);
+        for (const auto v : {trend::variance::binomial, trend::variance::conditional}) {
+            const auto r = trend::test(c, {}, v);
             out.push_back(std::string(g.name) + " trend" + std::to_string(static_cast<int>(v)) + " z=" + hex(r.z) +
                           " p=" + hex(r.p));
         }

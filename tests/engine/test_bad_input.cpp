@@ -9,6 +9,7 @@
 #include "tallyrates/check.hpp"
 #include "tallyrates/errors.hpp"
 #include "tallyrates/omnibus.hpp"
+#include "tallyrates/trend.hpp"
 #include "tallyrates/pairwise.hpp"
 
 using namespace tallyrates;
@@ -42,10 +43,10 @@ TEST(BadInput, EveryEntryPointWithValidCountsAndBadArguments) {
         std::vector<entry> scores = col({1, 2, 3});
         scores[0] = entry::number(bad);
         if (std::isfinite(bad)) {
-            const auto r = omnibus::trend(c, scores, omnibus::trend_variance::binomial);
+            const auto r = trend::test(c, scores, trend::variance::binomial);
             EXPECT_TRUE(std::isfinite(r.p));
         } else {
-            EXPECT_THROW(omnibus::trend(c, scores, omnibus::trend_variance::binomial), invalid_input);
+            EXPECT_THROW(trend::test(c, scores, trend::variance::binomial), invalid_input);
         }
     }
     omnibus::options o;

@@ -9,6 +9,7 @@
 #include "reference.hpp"
 #include "tallyrates/errors.hpp"
 #include "tallyrates/omnibus.hpp"
+#include "tallyrates/trend.hpp"
 
 using namespace tallyrates;
 using namespace tallyrates::omnibus;
@@ -234,15 +235,15 @@ TEST(Trend, MatchesStatsmodelsAndArmitage) {
         // Scores as in generate.py's TREND_CASES.
         if (r.name == "t_uneven_scores")
             for (double s : {0, 1, 2, 5}) scores.push_back(entry::number(s));
-        const auto v = r.quantity == "trend_binomial_p" ? trend_variance::binomial : trend_variance::conditional;
-        const auto res = trend(c, scores, v);
+        const auto v = r.quantity == "trend_binomial_p" ? trend::variance::binomial : trend::variance::conditional;
+        const auto res = trend::test(c, scores, v);
         const double got = r.quantity == "trend_conditional_z" ? res.z : res.p;
         expect_relative(got, r.value, 1e-10, r.name + " " + r.quantity + " (" + r.source + ")");
         ++checked;
     }
     EXPECT_EQ(checked, 9);
     // Armitage 1955 Table 1, binomial variance: chi^2 = 7.19, P = 0.007 [S] (checks.md).
-    const auto a = trend(make({19, 29, 24}, {516, 589, 293}), {}, trend_variance::binomial);
+    const auto a = trend::test(make({19, 29, 24}, {516, 589, 293}), {}, trend::variance::binomial);
     EXPECT_NEAR(a.chi2, 7.19, 0.005);
     EXPECT_NEAR(a.p, 0.007, 0.0005);
 }
@@ -250,9 +251,9 @@ TEST(Trend, MatchesStatsmodelsAndArmitage) {
 TEST(Trend, RefusesEqualScoresAndBadScoreCells) {
     const auto c = make({1, 2, 3}, {5, 5, 5});
     std::vector<entry> same{entry::number(2), entry::number(2), entry::number(2)};
-    EXPECT_THROW(trend(c, same, trend_variance::binomial), invalid_input);
+    EXPECT_THROW(trend::test(c, same, trend::variance::binomial), invalid_input);
     std::vector<entry> text{entry::number(1), entry::text(), entry::number(3)};
-    EXPECT_THROW(trend(c, text, trend_variance::binomial), invalid_input);
+    EXPECT_THROW(trend::test(c, text, trend::variance::binomial), invalid_input);
     std::vector<entry> short_range{entry::number(1), entry::number(2)};
-    EXPECT_THROW(trend(c, short_range, trend_variance::binomial), invalid_input);
+    EXPECT_THROW(trend::test(c, short_range, trend::variance::binomial), invalid_input);
 }

@@ -10,7 +10,7 @@
 #include <sstream>
 
 #include "catalog.hpp"
-#include "keywords.hpp"
+#include "omnibus/keywords.hpp"
 #include "tallyrates/omnibus.hpp"
 
 using namespace tallyrates;
@@ -59,12 +59,12 @@ TEST(Catalog, DefaultsAreTheEngineDefaults) {
     const auto* same = catalog::by_programmatic("sameP");
     ASSERT_NE(same, nullptr);
     EXPECT_TRUE(same->arguments[2].default_text.starts_with(
-        "\"" + std::string(keywords::text_of(o.how, keywords::omnibus_method)) + "\""));
+        "\"" + std::string(arguments::text_of(o.how, keywords::omnibus_method)) + "\""));
     EXPECT_EQ(same->arguments[3].default_text, std::to_string(o.draws));
     EXPECT_EQ(same->arguments[4].default_text, std::to_string(o.seed));
     const auto* trend = catalog::by_programmatic("trendP");
     EXPECT_EQ(trend->arguments[3].default_text,
-              "\"" + std::string(keywords::text_of(omnibus::trend_variance::binomial, keywords::trend_variance)) +
+              "\"" + std::string(arguments::text_of(trend::variance::binomial, keywords::trend_variance)) +
                   "\"");
 }
 
@@ -76,10 +76,10 @@ TEST(Catalog, EveryKeywordIsListedInTheDescriptions) {
 }
 
 TEST(Keywords, CaseInsensitiveAndListsTheAllowedWords) {
-    EXPECT_EQ(keywords::parse("Exact-LR", keywords::omnibus_method, "method"), omnibus::method::exact_lr);
-    EXPECT_EQ(keywords::parse(" montecarlo ", keywords::omnibus_method, "method"), omnibus::method::monte_carlo);
+    EXPECT_EQ(arguments::keyword("Exact-LR", keywords::omnibus_method, "method"), omnibus::method::exact_lr);
+    EXPECT_EQ(arguments::keyword(" montecarlo ", keywords::omnibus_method, "method"), omnibus::method::monte_carlo);
     try {
-        keywords::parse("fisher", keywords::omnibus_method, "method");
+        arguments::keyword("fisher", keywords::omnibus_method, "method");
         FAIL();
     } catch (const invalid_input& e) {
         EXPECT_STREQ(e.what(),

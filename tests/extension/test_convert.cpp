@@ -9,7 +9,14 @@
 #include <com/sun/star/uno/Sequence.hxx>
 #include <rtl/ustring.hxx>
 
+#include <boost/math/policies/error_handling.hpp>
+#include <com/sun/star/lang/IllegalArgumentException.hpp>
+#include <com/sun/star/sheet/NoConvergenceException.hpp>
+#include <com/sun/star/uno/RuntimeException.hpp>
+
 #include "convert.hpp"
+#include "guard.hpp"
+#include "omnibus/keywords.hpp"
 #include "tallyrates/errors.hpp"
 
 using css::uno::Any;
@@ -55,30 +62,52 @@ TEST(Convert, ColumnsAndRowsButNotBlocks) {
 }
 
 TEST(Convert, OptionalArguments) {
-    EXPECT_EQ(convert::optional_number(Any(), 0.95, "level"), 0.95);
-    EXPECT_EQ(convert::optional_number(Any(0.9), 0.95, "level"), 0.9);
-    EXPECT_EQ(convert::optional_number(as_any(column({Any(0.8)})), 0.95, "level"), 0.8);  // a one-cell range
-    EXPECT_EQ(convert::optional_number(as_any(column({text("")})), 0.95, "level"), 0.95);  // an empty one
-    EXPECT_THROW(convert::optional_number(text("high"), 0.95, "level"), invalid_input);
-    EXPECT_THROW(convert::optional_number(as_any(column({Any(1.0), Any(2.0)})), 0.95, "level"), invalid_input);
+    EXPECT_FALSE(convert::number(Any(), "level"));
+    EXPECT_EQ(convert::number(Any(0.9), "level"), 0.9);
+    EXPECT_EQ(convert::number(as_any(column({Any(0.8)})), "level"), 0.8);  // a one-cell range
+    EXPECT_FALSE(convert::number(as_any(column({text("")})), "level"));    // an empty one
+    EXPECT_THROW(convert::number(text("high"), "level"), invalid_input);
+    EXPECT_THROW(convert::number(as_any(column({Any(1.0), Any(2.0)})), "level"), invalid_input);
 
-    EXPECT_EQ(convert::optional_whole(Any(), 5, 1, 100, "draws"), 5);
-    EXPECT_EQ(convert::optional_whole(Any(40.0), 5, 1, 100, "draws"), 40);
-    EXPECT_THROW(convert::optional_whole(Any(2.5), 5, 1, 100, "draws"), invalid_input);
-    EXPECT_THROW(convert::optional_whole(Any(0.0), 5, 1, 100, "draws"), invalid_input);
-    EXPECT_THROW(convert::optional_whole(Any(1e15), 5, 1, 100, "draws"), budget_exceeded);
+    // The engine's rule applied to what the converter read.
+    auto draws = [](const Any& a) { return arguments::whole_or(convert::number(a, "draws"), 5, 1, 100, "draws"); };
+    EXPECT_EQ(draws(Any()), 5);
+    EXPECT_EQ(draws(Any(40.0)), 40);
+    EXPECT_THROW(draws(Any(2.5)), invalid_input);
+    EXPECT_THROW(draws(Any(0.0)), invalid_input);
+    EXPECT_THROW(draws(Any(1e15)), budget_exceeded);
 
-    EXPECT_EQ(convert::optional_keyword(Any(), omnibus::method::automatic, keywords::omnibus_method, "method"),
-              omnibus::method::automatic);
-    EXPECT_EQ(convert::optional_keyword(text("EXACT"), omnibus::method::automatic, keywords::omnibus_method, "method"),
-              omnibus::method::exact);
-    EXPECT_EQ(convert::optional_keyword(as_any(column({text("lr")})), omnibus::method::automatic, keywords::omnibus_method,
-                                        "method"),
-              omnibus::method::lr);
-    EXPECT_THROW(convert::optional_keyword(Any(1.0), omnibus::method::automatic, keywords::omnibus_method, "method"),
-                 invalid_input);
+    auto method = [](const Any& a) {
+        return arguments::keyword_or(convert::word(a, "method"), omnibus::method::automatic, keywords::omnibus_method,
+                                     "method");
+    };
+    EXPECT_EQ(method(Any()), omnibus::method::automatic);
+    EXPECT_EQ(method(text("EXACT")), omnibus::method::exact);
+    EXPECT_EQ(method(as_any(column({text("lr")}))), omnibus::method::lr);
+    EXPECT_THROW(method(Any(1.0)), invalid_input);
     EXPECT_TRUE(convert::optional_range(Any(), "scores").empty());
     EXPECT_EQ(convert::optional_range(as_any(column({Any(1.0), Any(4.0)})), "scores").size(), 2u);
+}
+
+// The error mapping (guard.hpp): what each kind of failure becomes in a cell.
+TEST(Guard, EngineAndBoostErrorsBecomeCalcErrors) {
+    auto fails_with = [](auto thrower) {
+        return uno::guarded([&]() -> double {
+            thrower();
+            return 0;
+        });
+    };
+    EXPECT_THROW(fails_with([] { throw invalid_input("bad"); }), css::lang::IllegalArgumentException);
+    EXPECT_THROW(fails_with([] { throw budget_exceeded("cap"); }), css::sheet::NoConvergenceException);
+    // Boost.Math's evaluation_error derives from std::runtime_error, yet it is
+    // a numerical failure (Err:523), not an internal error (#VALUE!).
+    EXPECT_THROW(fails_with([] { throw boost::math::evaluation_error("series did not converge"); }),
+                 css::sheet::NoConvergenceException);
+    EXPECT_THROW(fails_with([] { throw std::domain_error("x is nan"); }), css::sheet::NoConvergenceException);
+    EXPECT_THROW(fails_with([] { throw std::overflow_error("too big"); }), css::sheet::NoConvergenceException);
+    EXPECT_THROW(fails_with([] { throw std::bad_alloc(); }), css::sheet::NoConvergenceException);
+    EXPECT_THROW(fails_with([] { throw std::logic_error("bug"); }), css::uno::RuntimeException);
+    EXPECT_THROW(uno::finite(NAN), no_convergence);
 }
 
 // Robustness sweep over values of every kind Calc could hand us, and some it
@@ -119,16 +148,13 @@ TEST(Convert, RandomValuesNeverEscapeAsOtherErrors) {
         } catch (const invalid_input&) {
         }
         try {
-            convert::optional_number(whole, 0.95, "level");
-        } catch (const invalid_input&) {
-        }
-        try {
-            convert::optional_whole(whole, 5, 1, 1e7, "draws");
+            arguments::whole_or(convert::number(whole, "draws"), 5, 1, 1e7, "draws");
         } catch (const invalid_input&) {
         } catch (const budget_exceeded&) {
         }
         try {
-            convert::optional_keyword(whole, omnibus::method::automatic, keywords::omnibus_method, "method");
+            arguments::keyword_or(convert::word(whole, "method"), omnibus::method::automatic, keywords::omnibus_method,
+                                  "method");
         } catch (const invalid_input&) {
         }
         try {

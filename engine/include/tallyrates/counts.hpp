@@ -71,8 +71,4 @@ private:
     std::int64_t total_attempts_ = 0;
 };
 
-// Formats a number for messages: integers without a decimal point, others
-// with up to 6 significant digits.
-std::string format_number(double v);
-
 }  // namespace tallyrates

@@ -1,4 +1,4 @@
-// errors.hpp - the few exception types the engine throws.
+// errors.hpp - every exception type the engine throws.
 //
 // The engine reports three kinds of failure; extension/ maps each to one Calc
 // error code (architecture: invalid_input -> Err:502, budget_exceeded and
@@ -29,6 +29,17 @@ private:
 class budget_exceeded : public std::runtime_error {
 public:
     using std::runtime_error::runtime_error;
+};
+
+// The exact omnibus route asked for by name did not fit its cap; where a
+// coarse enumeration fitted, the exact p-value is known to lie in
+// [p_low, p_high].
+class exact_refused : public budget_exceeded {
+public:
+    exact_refused(const std::string& message, bool has_bounds, double p_low, double p_high)
+        : budget_exceeded(message), has_bounds(has_bounds), p_low(p_low), p_high(p_high) {}
+    bool has_bounds;
+    double p_low, p_high;
 };
 
 // An iterative method did not reach its accuracy target.

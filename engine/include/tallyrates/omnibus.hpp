@@ -7,7 +7,7 @@
 // (Freeman & Halton 1951). Monte Carlo with fixed margins by sequential
 // hypergeometric draws (the 2 x G case of Patefield 1981, AS 159), p-value
 // (1 + extreme) / (B + 1) (Davison & Hinkley 1997; Phipson & Smyth 2010).
-// Trend across ordered groups: Cochran (1954), Armitage (1955).
+// The trend test across ordered groups is in trend.hpp.
 //
 // Groups with no attempts carry no information about a shared rate and are
 // left out; at least two groups with attempts are needed.
@@ -36,6 +36,8 @@ enum class route { pearson, lr, exact, monte_carlo, all_alike };
 // Fixed default seed: same result at every recalculation and on every machine.
 inline constexpr std::uint64_t default_seed = 20260101;
 inline constexpr std::int64_t default_draws = 100000;
+// Largest seed: every whole number up to 2^53 is exact in a cell.
+inline constexpr double max_seed = 9007199254740992.0;
 
 // Hard caps on user-requested work (Err:523 past them) and the share of the
 // 250 ms budget that the automatic route may spend on each attempt. Work is
@@ -55,6 +57,7 @@ struct limits {
 
 struct options {
     method how = method::automatic;
+    // Checked by same_rates (arguments::whole with the caps below).
     std::int64_t draws = default_draws;
     std::uint64_t seed = default_seed;
     unsigned threads = 1;  // Monte Carlo only; the result does not depend on it
@@ -68,6 +71,9 @@ struct table {
     std::int64_t successes = 0;
     std::int64_t attempts = 0;
     std::size_t groups() const { return n.size(); }
+    // No attempt or every attempt succeeded: every group shows the same rate,
+    // only one table has these margins, and p = 1 by every route.
+    bool all_alike() const { return successes == 0 || successes == attempts; }
 };
 // invalid_input unless at least two groups have attempts.
 table table_of(const counts& c);
@@ -128,16 +134,6 @@ struct result {
     exact_outcome exact;
 };
 
-// The exact route asked for by name did not fit its cap; where a coarse
-// enumeration fitted, the exact p-value is known to lie in [p_low, p_high].
-class exact_refused : public budget_exceeded {
-public:
-    exact_refused(const std::string& message, bool has_bounds, double p_low, double p_high)
-        : budget_exceeded(message), has_bounds(has_bounds), p_low(p_low), p_high(p_high) {}
-    bool has_bounds;
-    double p_low, p_high;
-};
-
 // Memo of analyses keyed by the table and every option that changes the
 // answer (threads does not).
 struct analysis_key {
@@ -169,19 +165,5 @@ result same_rates(const counts& c, const options& opt, result_cache* cache = nul
 // Which route "auto" takes and why, without computing the p-value beyond what
 // the choice needs (used by RATES.CHECK).
 std::string auto_route_advice(const counts& c, result_cache* cache = nullptr);
-
-// ---- Trend (Cochran 1954; Armitage 1955) ----
-enum class trend_variance {
-    binomial,    // Armitage 1955: p(1-p) * sum n (s - mean s)^2
-    conditional  // hypergeometric, the N/(N-1) form (Agresti 2002, section 5.3.5)
-};
-struct trend_result {
-    double z = 0;   // signed: positive when the rate rises with the score
-    double chi2 = 0;
-    double p = 1;   // two-sided
-};
-// `scores` has one entry per position of the range (blank rows' entries are
-// ignored); empty means the positions 1, 2, 3, ... themselves.
-trend_result trend(const counts& c, std::span<const entry> scores, trend_variance v);
 
 }  // namespace tallyrates::omnibus

@@ -1,19 +1,15 @@
 // hypergeometric.cpp - see hypergeometric.hpp for the recurrence and why it
 // uses only + - * /.
-#include "tallyrates/hypergeometric.hpp"
+#include "hypergeometric.hpp"
 
 #include <algorithm>
 #include <cmath>
 
 namespace tallyrates::detail {
 
-hypergeometric_support hypergeometric_range(std::int64_t M, std::int64_t K, std::int64_t n) {
-    return {std::max<std::int64_t>(0, n - (M - K)), std::min(n, K)};
-}
-
 hypergeometric_support hypergeometric_pmf(std::int64_t M, std::int64_t K, std::int64_t n, std::vector<double>& pmf,
                                           double trim) {
-    const auto full = hypergeometric_range(M, K, n);
+    const auto full = feasible_successes(M, K, n);
     // Mode of the hypergeometric law: floor((n + 1)(K + 1) / (M + 2)), computed
     // in floating point because the product can pass 2^63 for huge counts.
     const double mode_real = std::floor(static_cast<double>(n + 1) * static_cast<double>(K + 1) /

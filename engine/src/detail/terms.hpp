@@ -1,4 +1,4 @@
-// terms.hpp (private) - each ordering statistic is a sum over groups of a term
+// terms.hpp (detail) - each ordering statistic is a sum over groups of a term
 // that depends on that group's successes only, once the margins are fixed:
 //   X^2: (x - n S/N)^2 N^2 / (n S F)           (both cells of the column)
 //   G^2: 2 [x ln(x / E) + (n - x) ln((n - x) / E')],  E = n S / N, E' = n F / N
@@ -11,7 +11,10 @@
 
 #include "tallyrates/omnibus.hpp"
 
-namespace tallyrates::omnibus::detail {
+namespace tallyrates::detail {
+
+using omnibus::ordering;
+using omnibus::table;
 
 // ln C(n, k) by lgamma differences.
 double log_choose(std::int64_t n, std::int64_t k);
@@ -47,4 +50,4 @@ double observed_total(const table& t, ordering o);
 // the probability ordering, whose observed total is 0 by construction.
 double extreme_threshold(double observed, ordering o);
 
-}  // namespace tallyrates::omnibus::detail
+}  // namespace tallyrates::detail

@@ -1,4 +1,4 @@
-// random.hpp - our fully specified generator, so Monte Carlo results are
+// random.hpp (detail) - our fully specified generator, so Monte Carlo results are
 // bit-identical on every machine and compiler.
 //
 // xoshiro256** 1.0 and its jump function (Blackman & Vigna 2018, "Scrambled
@@ -11,7 +11,7 @@
 
 #include <cstdint>
 
-namespace tallyrates::random {
+namespace tallyrates::detail {
 
 class splitmix64 {
 public:
@@ -65,4 +65,4 @@ private:
     std::uint64_t s_[4];
 };
 
-}  // namespace tallyrates::random
+}  // namespace tallyrates::detail

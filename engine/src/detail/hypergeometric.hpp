@@ -1,4 +1,4 @@
-// hypergeometric.hpp - the conditional law of one group's successes when the
+// hypergeometric.hpp (detail) - the conditional law of one group's successes when the
 // margins of the 2 x G table are fixed: drawing `draws` items from a
 // population of `population` of which `marked` are successes.
 //
@@ -10,6 +10,7 @@
 // about 1e-13 at n = 500.
 #pragma once
 
+#include <algorithm>
 #include <cstdint>
 #include <vector>
 
@@ -20,8 +21,14 @@ struct hypergeometric_support {
     std::int64_t last = 0;   // largest
 };
 
-// The full support [max(0, n - (M - K)), min(n, K)].
-hypergeometric_support hypergeometric_range(std::int64_t population, std::int64_t marked, std::int64_t draws);
+// The successes that `draws` of `population` items can hold when `marked` of
+// them are successes: [max(0, draws - (population - marked)), min(draws,
+// marked)]. The same range is the feasible successes after `draws` attempts
+// of a table with `population` attempts and `marked` successes in all, which
+// is how the exact network and the Monte Carlo sampler use it.
+inline hypergeometric_support feasible_successes(std::int64_t population, std::int64_t marked, std::int64_t draws) {
+    return {std::max<std::int64_t>(0, draws - (population - marked)), std::min(draws, marked)};
+}
 
 // Fills `pmf` with P(first), ..., P(last) normalised to sum 1. With trim > 0,
 // values below trim * P(mode) are left out at both ends (their total is below

@@ -1,0 +1,21 @@
+// text.hpp - numbers as they appear inside sentences (messages, RATES.CHECK,
+// the report's "why" row).
+#pragma once
+
+#include <string>
+
+namespace tallyrates {
+
+// Whole numbers without a decimal point (1e15 and above in exponent form);
+// others with up to 6 significant digits. For arguments and counts the user
+// typed, which must be recognisable.
+std::string format_number(double v);
+
+// A computed quantity in a sentence: 3 significant digits (0.0426, 1.23e-21),
+// whole numbers in full.
+std::string format_short(double v);
+
+// "1 group" / "3 groups".
+std::string count_of(std::size_t n, const char* singular, const char* plural);
+
+}  // namespace tallyrates

@@ -1,0 +1,84 @@
+// terms.cpp (detail) - the per-group terms of X^2, G^2 and the table
+// probability (see terms.hpp), the observed totals and the tie threshold.
+#include "terms.hpp"
+
+#include <algorithm>
+#include <boost/math/special_functions/gamma.hpp>
+#include <cmath>
+
+#include "tallyrates/errors.hpp"
+#include "tallyrates/text.hpp"
+
+namespace tallyrates::detail {
+
+using omnibus::ordering;
+using omnibus::table;
+
+
+double log_choose(std::int64_t n, std::int64_t k) {
+    // lgamma differences: ample here, since only the ordering of tables (with a
+    // 1e-7 tie tolerance) depends on these values, never the p-value itself.
+    return boost::math::lgamma(static_cast<double>(n) + 1) - boost::math::lgamma(static_cast<double>(k) + 1) -
+           boost::math::lgamma(static_cast<double>(n - k) + 1);
+}
+
+namespace {
+// x ln(x / e) with 0 ln 0 = 0.
+double xlogx_over(double x, double e) { return x == 0.0 ? 0.0 : x * std::log(x / e); }
+}  // namespace
+
+term_function::term_function(const table& t, ordering o) : t_(t), o_(o) {
+    N_ = static_cast<double>(t.attempts);
+    S_ = static_cast<double>(t.successes);
+    F_ = N_ - S_;
+}
+
+double term_function::operator()(std::size_t g, std::int64_t x) const {
+    const double nd = static_cast<double>(t_.n[g]);
+    const double xd = static_cast<double>(x);
+    switch (o_) {
+        case ordering::pearson: {
+            const double d = xd - nd * S_ / N_;
+            return d * d * (N_ * N_ / (nd * S_ * F_));
+        }
+        case ordering::lr:
+            return 2.0 * (xlogx_over(xd, nd * S_ / N_) + xlogx_over(nd - xd, nd * F_ / N_));
+        case ordering::probability:
+            return log_choose(t_.n[g], t_.x[g]) - log_choose(t_.n[g], x);
+    }
+    return 0.0;
+}
+
+std::vector<term_row> term_tables(const table& t, ordering o) {
+    const term_function term(t, o);
+    const std::int64_t S = t.successes, F = t.attempts - t.successes;
+    double cells = 0;
+    for (auto n : t.n) cells += static_cast<double>(std::min({n, S, F})) + 1;
+    if (cells > 5e7)
+        throw budget_exceeded("The tables of this route would hold " + format_number(cells) +
+                              " values, more than memory allows; counts this large suit the chi-square route.");
+    std::vector<term_row> rows(t.groups());
+    for (std::size_t g = 0; g < t.groups(); ++g) {
+        const std::int64_t n = t.n[g];
+        rows[g].first = std::max<std::int64_t>(0, n - F);
+        const std::int64_t last = std::min(n, S);
+        rows[g].values.reserve(static_cast<std::size_t>(last - rows[g].first + 1));
+        for (std::int64_t x = rows[g].first; x <= last; ++x) rows[g].values.push_back(term(g, x));
+    }
+    return rows;
+}
+
+double observed_total(const table& t, ordering o) {
+    const term_function term(t, o);
+    double total = 0.0;
+    for (std::size_t g = 0; g < t.groups(); ++g) total += term(g, t.x[g]);
+    return total;
+}
+
+double extreme_threshold(double observed, ordering o) {
+    if (o == ordering::probability) return observed - 1e-7;
+    // The 1e-12 floor keeps tied tables whose G^2 rounds a hair below 0.
+    return observed * (1.0 - 1e-7) - 1e-12;
+}
+
+}  // namespace tallyrates::detail

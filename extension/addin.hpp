@@ -1,0 +1,66 @@
+// addin.hpp - the UNO add-in class. Its worksheet methods (XRates) are
+// defined one file per family (omnibus/functions.cpp, pairs/functions.cpp),
+// each about ten lines: convert, call the engine, return, inside `guarded`.
+// The XAddIn, XServiceName and XServiceInfo answers and the factory are in
+// addin.cpp; names and descriptions come from the catalog.
+#pragma once
+
+#include <com/sun/star/lang/Locale.hpp>
+#include <com/sun/star/lang/XServiceInfo.hpp>
+#include <com/sun/star/lang/XServiceName.hpp>
+#include <com/sun/star/sheet/XAddIn.hpp>
+#include <cppuhelper/implbase4.hxx>
+#include <mutex>
+#include <org/tallyrates/sheet/XRates.hpp>
+
+#include "convert.hpp"
+#include "tallyrates/omnibus.hpp"
+
+namespace tallyrates::uno {
+
+using css::uno::Any;
+using convert::range;
+using rtl::OUString;
+using array = css::uno::Sequence<css::uno::Sequence<css::uno::Any>>;
+
+class rates final : public cppu::WeakImplHelper4<org::tallyrates::sheet::XRates, css::sheet::XAddIn,
+                                                 css::lang::XServiceName, css::lang::XServiceInfo> {
+public:
+    // ---- omnibus family (omnibus/functions.cpp) ----
+    OUString SAL_CALL check(const range& successes, const range& attempts, const Any& method) override;
+    double SAL_CALL sameP(const range& successes, const range& attempts, const Any& method, const Any& draws,
+                          const Any& seed) override;
+    double SAL_CALL sameStat(const range& successes, const range& attempts, const Any& statistic) override;
+    array SAL_CALL sameReport(const range& successes, const range& attempts, const Any& method, const Any& draws,
+                              const Any& seed) override;
+    double SAL_CALL trendP(const range& successes, const range& attempts, const Any& scores,
+                           const Any& variance) override;
+    double SAL_CALL trendZ(const range& successes, const range& attempts, const Any& scores,
+                           const Any& variance) override;
+
+    // ---- pairs family (pairs/functions.cpp) ----
+    double SAL_CALL diff(const range& successes, const range& attempts, double i, double j) override;
+
+    // ---- XAddIn, XServiceName, XServiceInfo (addin.cpp) ----
+    OUString SAL_CALL getProgrammaticFuntionName(const OUString& display) override;
+    OUString SAL_CALL getDisplayFunctionName(const OUString& name) override;
+    OUString SAL_CALL getFunctionDescription(const OUString& name) override;
+    OUString SAL_CALL getDisplayArgumentName(const OUString& name, sal_Int32 index) override;
+    OUString SAL_CALL getArgumentDescription(const OUString& name, sal_Int32 index) override;
+    OUString SAL_CALL getProgrammaticCategoryName(const OUString& name) override;
+    OUString SAL_CALL getDisplayCategoryName(const OUString& name) override;
+    void SAL_CALL setLocale(const css::lang::Locale& locale) override;
+    css::lang::Locale SAL_CALL getLocale() override;
+    OUString SAL_CALL getServiceName() override;
+    OUString SAL_CALL getImplementationName() override;
+    sal_Bool SAL_CALL supportsService(const OUString& name) override;
+    css::uno::Sequence<OUString> SAL_CALL getSupportedServiceNames() override;
+
+private:
+    std::mutex mutex_;
+    css::lang::Locale locale_;
+    // Analyses already made, keyed by their exact inputs (thread-safe).
+    omnibus::result_cache cache_{64};
+};
+
+}  // namespace tallyrates::uno

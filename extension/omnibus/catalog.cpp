@@ -1,0 +1,91 @@
+// omnibus/catalog.cpp - wizard texts of the omnibus family: RATES.CHECK,
+// RATES.SAME.*, RATES.TREND.* (functions.md, "Checks" and "All groups
+// alike?"). Written for an engineer who knows the process, not the
+// statistics. Wording is ours.
+#include <array>
+
+#include "../catalog.hpp"
+#include "../shared_arguments.hpp"
+
+namespace tallyrates::catalog {
+
+namespace {
+
+using shared::attempts;
+using shared::successes;
+
+// Ends every description of a function that can fail with Err:502.
+#define WHY_502 " If the cell shows Err:502, RATES.CHECK on the same ranges says why."
+
+constexpr argument method{
+    "method",
+    "Leave empty or \"auto\" (recommended): the counts decide. Otherwise \"exact\" (exact test, for small counts), "
+    "\"pearson\" (chi-square approximation) or \"montecarlo\" (random tables with the same totals). Specialist "
+    "variants: \"lr\" (likelihood-ratio chi-square), \"exact-lr\" and \"exact-prob\" (exact test ordering tables "
+    "by G² or by their probability).",
+    "\"auto\": chi-square when every expected count is at least 5, else the exact test when it fits the time "
+    "budget, else Monte Carlo"};
+constexpr argument draws{"draws",
+                         "How many random tables \"montecarlo\" draws (and \"auto\" when it simulates), at most "
+                         "10,000,000. More draws, a steadier p-value, a slower cell.",
+                         "100000"};
+constexpr argument seed{"seed",
+                        "Whole number that fixes the random tables: the same seed gives the same p-value on every "
+                        "machine and at every recalculation.",
+                        "20260101"};
+
+constexpr std::array check_args{
+    successes, attempts,
+    argument{"method",
+             "A method word of RATES.SAME.P to try as well: the answer then says whether that route fits and what "
+             "it would do.",
+             "\"auto\""}};
+constexpr std::array same_p_args{successes, attempts, method, draws, seed};
+constexpr std::array same_stat_args{
+    successes, attempts,
+    argument{"statistic", "\"pearson\" for Pearson's X² or \"lr\" for the likelihood-ratio G².", "\"pearson\""}};
+constexpr std::array trend_args{
+    successes, attempts,
+    argument{"scores",
+             "Cells with one number per row giving each group's place in the ordered factor (belt speed, "
+             "temperature step); blank rows ignored.",
+             "the positions 1, 2, 3, ..."},
+    argument{"variance",
+             "\"binomial\" (Armitage 1955) or \"conditional\" (the hypergeometric form, N/(N-1) times larger).",
+             "\"binomial\""}};
+
+constexpr std::array table{
+    function{"check", "RATES.CHECK",
+             "Checks the two count ranges: \"ok\" with the number of groups, total attempts, smallest expected count "
+             "and the route the automatic test takes, or the first problem with its row.",
+             check_args},
+    function{"sameP", "RATES.SAME.P",
+             "p-value for \"all groups share one success rate\": a small value (below 0.05, say) means the rates "
+             "differ by more than chance explains; a large one means the counts show no clear difference." WHY_502,
+             same_p_args},
+    function{"sameStat", "RATES.SAME.STAT",
+             "Test statistic for \"all groups share one rate\": Pearson X² or likelihood-ratio G², with "
+             "(groups - 1) degrees of freedom." WHY_502,
+             same_stat_args},
+    function{"sameReport", "RATES.SAME.REPORT",
+             "Two-column array (label, value) about the test that all groups share one rate: statistic, degrees of "
+             "freedom, p-value, route used and why, expected counts, Monte Carlo error or exact bounds. Enter as an "
+             "array formula over 11 rows and 2 columns; problems with the input are shown in it.",
+             same_p_args, true},
+    function{"trendP", "RATES.TREND.P",
+             "p-value of the Cochran-Armitage test for a rate that rises or falls steadily across the groups in "
+             "order (two-sided)." WHY_502,
+             trend_args},
+    function{"trendZ", "RATES.TREND.Z",
+             "Signed z of the Cochran-Armitage trend test: positive when the rate rises with the score, negative "
+             "when it falls; beyond about +-2 the trend is clear at the 5 % level." WHY_502,
+             trend_args},
+};
+
+#undef WHY_502
+
+}  // namespace
+
+std::span<const function> omnibus_functions() { return table; }
+
+}  // namespace tallyrates::catalog

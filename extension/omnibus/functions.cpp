@@ -1,0 +1,98 @@
+// omnibus/functions.cpp - the worksheet methods of the omnibus family:
+// RATES.CHECK, RATES.SAME.P / .STAT / .REPORT, RATES.TREND.P / .Z. Each
+// converts its arguments, calls the engine and returns, inside `guarded`.
+#include "../addin.hpp"
+#include "../guard.hpp"
+#include "keywords.hpp"
+#include "tallyrates/check.hpp"
+#include "tallyrates/report.hpp"
+#include "tallyrates/trend.hpp"
+
+namespace tallyrates::uno {
+
+namespace {
+
+omnibus::options omnibus_options(const Any& method, const Any& draws, const Any& seed) {
+    omnibus::options o;
+    o.how = arguments::keyword_or(convert::word(method, "method"), o.how, keywords::omnibus_method, "method");
+    o.draws = arguments::whole_or(convert::number(draws, "draws"), o.draws, 1,
+                                  static_cast<double>(o.caps.max_draws), "draws");
+    o.seed = static_cast<std::uint64_t>(arguments::whole_or(convert::number(seed, "seed"),
+                                                            static_cast<std::int64_t>(o.seed), 0, omnibus::max_seed,
+                                                            "seed"));
+    return o;
+}
+
+// RATES.CHECK and RATES.SAME.REPORT answer a problem with a sentence instead
+// of an error, so they read their arguments through this and show the
+// problem when there is one.
+struct omnibus_inputs {
+    std::vector<entry> successes, attempts;
+    omnibus::options options;
+    std::string problem;
+};
+omnibus_inputs read_inputs(const range& successes, const range& attempts, const Any& method, const Any& draws,
+                           const Any& seed) {
+    omnibus_inputs in;
+    try {
+        in.successes = convert::range_entries(successes, "successes");
+        in.attempts = convert::range_entries(attempts, "attempts");
+        in.options = omnibus_options(method, draws, seed);
+    } catch (const invalid_input& e) {
+        in.problem = e.what();
+    } catch (const budget_exceeded& e) {
+        in.problem = e.what();
+    }
+    return in;
+}
+
+trend::result trend_of(const range& successes, const range& attempts, const Any& scores, const Any& variance) {
+    const auto v = arguments::keyword_or(convert::word(variance, "variance"), trend::variance::binomial,
+                                         keywords::trend_variance, "variance");
+    return trend::test(convert::counts_of(successes, attempts), convert::optional_range(scores, "scores"), v);
+}
+
+}  // namespace
+
+OUString rates::check(const range& successes, const range& attempts, const Any& method) {
+    return guarded([&] {
+        const auto in = read_inputs(successes, attempts, method, Any(), Any());
+        if (!in.problem.empty()) return ou("problem: " + in.problem);
+        return ou(check_text(in.successes, in.attempts, &in.options, &cache_));
+    });
+}
+
+double rates::sameP(const range& successes, const range& attempts, const Any& method, const Any& draws,
+                    const Any& seed) {
+    return guarded([&] {
+        const auto o = omnibus_options(method, draws, seed);
+        return finite(omnibus::same_rates(convert::counts_of(successes, attempts), o, &cache_).p);
+    });
+}
+
+double rates::sameStat(const range& successes, const range& attempts, const Any& statistic) {
+    return guarded([&] {
+        const auto which = arguments::keyword_or(convert::word(statistic, "statistic"), omnibus::ordering::pearson,
+                                                 keywords::statistic, "statistic");
+        return finite(omnibus::statistic(omnibus::table_of(convert::counts_of(successes, attempts)), which));
+    });
+}
+
+array rates::sameReport(const range& successes, const range& attempts, const Any& method, const Any& draws,
+                        const Any& seed) {
+    return guarded([&] {
+        const auto in = read_inputs(successes, attempts, method, draws, seed);
+        if (!in.problem.empty()) return convert::to_array(problem_report(in.problem));
+        return convert::to_array(same_rates_report(in.successes, in.attempts, in.options, &cache_));
+    });
+}
+
+double rates::trendP(const range& successes, const range& attempts, const Any& scores, const Any& variance) {
+    return guarded([&] { return finite(trend_of(successes, attempts, scores, variance).p); });
+}
+
+double rates::trendZ(const range& successes, const range& attempts, const Any& scores, const Any& variance) {
+    return guarded([&] { return finite(trend_of(successes, attempts, scores, variance).z); });
+}
+
+}  // namespace tallyrates::uno

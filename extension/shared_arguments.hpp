@@ -1,0 +1,28 @@
+// shared_arguments.hpp - catalog entries for the arguments that several
+// function families take, written once. Wording is ours.
+#pragma once
+
+#include "catalog.hpp"
+
+namespace tallyrates::catalog::shared {
+
+inline constexpr argument successes{
+    "successes",
+    "Cells with the success counts, one group per row (or per column): units within specification, passes. "
+    "Select the column as you keep it, whole columns such as B:B included; rows blank in both ranges are skipped.",
+    ""};
+inline constexpr argument attempts{
+    "attempts",
+    "Cells with the attempt counts, the same size as successes: units made, runs tried. A group with 0 attempts "
+    "is allowed and left out of tests.",
+    ""};
+inline constexpr argument i{"i", "Position of the first group in the range (1 = first row of the range, blank rows counted).",
+                            ""};
+inline constexpr argument j{"j", "Position of the second group, counted the same way.", ""};
+inline constexpr argument labels{
+    "labels",
+    "Cells with the group names (oven, line, lot), the same size as the count ranges; messages then name the "
+    "group as well as its row.",
+    "none: groups are named by position"};
+
+}  // namespace tallyrates::catalog::shared
