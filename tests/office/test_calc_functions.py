@@ -64,6 +64,33 @@ class ReferenceValues(SheetCase):
         self.formula("D1", "=RATES.DIFF(%s;1;3)" % r)
         self.assertAlmostEqual(self.value_of("D1"), 45 / 50 - 12 / 16, places=15)
 
+    def test_trend_z_is_signed_like_statsmodels(self):
+        # Source: statsmodels 0.13.5 Table.test_ordinal_association, the
+        # linear-by-linear z (omnibus.csv rows trend_conditional_z): a rising
+        # rate gives +3.755, a falling one over uneven scores -0.810.
+        want = {(row["case"]): row for row in harness.reference_rows() if row["quantity"] == "trend_conditional_z"}
+        r = self.put_counts([2, 5, 9, 14], [30, 30, 30, 30])
+        self.formula("D1", '=RATES.TREND.Z(%s;;"conditional")' % r)
+        self.assertRelative(self.value_of("D1"), want["t_rising"]["value"], 1e-10, want["t_rising"]["source"])
+        r = self.put_counts([10, 12, 8, 3], [40, 50, 30, 20])
+        for k, s in enumerate([0, 1, 2, 5]):
+            self.sheet.getCellRangeByName("C%d" % (k + 1)).setValue(s)
+        self.formula("D2", '=RATES.TREND.Z(%s;C1:C4;"conditional")' % r)
+        self.assertRelative(self.value_of("D2"), want["t_uneven_scores"]["value"], 1e-10,
+                            want["t_uneven_scores"]["source"])
+        self.assertLess(self.value_of("D2"), 0)
+
+    def test_a_boost_math_failure_gives_err523(self):
+        # Scores so large that their weighted mean overflows make the trend z
+        # NaN, and Boost.Math's normal distribution refuses it with a domain
+        # error: the cell must show Err:523 (a numerical failure), not #VALUE!.
+        r = self.put_counts([300, 700], [1000, 1000])
+        self.sheet.getCellRangeByName("C1").setValue(1e306)
+        self.sheet.getCellRangeByName("C2").setValue(2e306)
+        self.formula("D1", "=RATES.TREND.P(%s;C1:C2)" % r)
+        self.assertEqual(self.shown("D1"), "Err:523")
+        self.assertTrue(harness.OFFICE.alive())
+
 
 class Routes(SheetCase):
     def test_auto_takes_exact_for_small_counts_and_says_so(self):
