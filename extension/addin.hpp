@@ -27,12 +27,13 @@ class rates final : public cppu::WeakImplHelper4<org::tallyrates::sheet::XRates,
                                                  css::lang::XServiceName, css::lang::XServiceInfo> {
 public:
     // ---- omnibus family (omnibus/functions.cpp) ----
-    OUString SAL_CALL check(const range& successes, const range& attempts, const Any& method) override;
+    OUString SAL_CALL check(const range& successes, const range& attempts, const Any& method,
+                           const Any& labels) override;
     double SAL_CALL sameP(const range& successes, const range& attempts, const Any& method, const Any& draws,
                           const Any& seed) override;
     double SAL_CALL sameStat(const range& successes, const range& attempts, const Any& statistic) override;
     array SAL_CALL sameReport(const range& successes, const range& attempts, const Any& method, const Any& draws,
-                              const Any& seed) override;
+                              const Any& seed, const Any& labels) override;
     double SAL_CALL trendP(const range& successes, const range& attempts, const Any& scores,
                            const Any& variance) override;
     double SAL_CALL trendZ(const range& successes, const range& attempts, const Any& scores,

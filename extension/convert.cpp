@@ -5,6 +5,7 @@
 
 #include "guard.hpp"
 #include "tallyrates/arguments.hpp"
+#include "tallyrates/text.hpp"
 
 namespace tallyrates::convert {
 
@@ -72,6 +73,24 @@ std::vector<entry> optional_range(const Any& a, const char* argument) {
     if (a >>= r) return range_entries(r, argument);
     if (a.getValueTypeClass() == TypeClass_DOUBLE) return {cell_entry(a)};
     arguments::not_a_range(argument);
+}
+
+std::vector<std::string> optional_texts(const Any& a, const char* argument) {
+    if (a.getValueTypeClass() == TypeClass_VOID) return {};
+    range r;
+    if (!(a >>= r)) arguments::not_a_range(argument);
+    const sal_Int32 rows = r.getLength(), cols = rows ? r[0].getLength() : 0;
+    if (rows > 1 && cols > 1) arguments::not_one_line(argument, static_cast<std::size_t>(rows), static_cast<std::size_t>(cols));
+    std::vector<std::string> out;
+    for (const auto& row : r)
+        for (const Any& cell : row) {
+            rtl::OUString s;
+            double v = 0;
+            if (cell >>= s) out.push_back(uno::utf8(s));
+            else if (cell >>= v) out.push_back(format_number(v));
+            else out.emplace_back();
+        }
+    return out;
 }
 
 counts counts_of(const range& successes, const range& attempts) {

@@ -35,8 +35,11 @@ entry cell_entry(const css::uno::Any& cell);
 // a blank cell given as a one-cell range).
 std::optional<double> number(const css::uno::Any& a, const char* argument);
 std::optional<std::string> word(const css::uno::Any& a, const char* argument);
-// An optional range argument (scores, labels): empty when omitted.
+// An optional range argument (scores): empty when omitted.
 std::vector<entry> optional_range(const css::uno::Any& a, const char* argument);
+// An optional range of names (labels): the text of each cell, numbers as
+// they would be typed, blank cells empty; nothing when omitted.
+std::vector<std::string> optional_texts(const css::uno::Any& a, const char* argument);
 
 // The two count ranges of a call, validated (engine rules, counts.hpp).
 counts counts_of(const range& successes, const range& attempts);

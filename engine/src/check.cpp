@@ -1,30 +1,37 @@
 // check.cpp - the RATES.CHECK sentence: the first problem with its position, or
-// "ok" with the group count, total attempts, smallest expected count and the
-// route the automatic omnibus test takes (functions.md, "Checks").
+// "ok" with the group count, total attempts, smallest expected count (which
+// group, successes or failures) and the route the automatic omnibus test takes
+// (functions.md, "Checks").
 #include "tallyrates/check.hpp"
 
 #include "tallyrates/errors.hpp"
-#include "tallyrates/text.hpp"
 #include "tallyrates/omnibus.hpp"
+#include "tallyrates/text.hpp"
 
 namespace tallyrates {
 
+std::string smallest_expected_place(const counts& c, const omnibus::expected_summary& e) {
+    return std::string(e.smallest_is_failures ? "failures" : "successes") + " at " + c.name_of(e.smallest_position);
+}
+
 std::string check_text(std::span<const entry> successes, std::span<const entry> attempts,
-                       const omnibus::options* asked, omnibus::result_cache* cache) {
+                       std::span<const std::string> labels, const omnibus::options* asked,
+                       omnibus::result_cache* cache) {
     counts c;
     try {
-        c = counts::from_entries(successes, attempts);
+        c = counts::from_entries(successes, attempts, labels);
     } catch (const invalid_input& e) {
         return std::string("problem: ") + e.what();
     }
     const auto groups = c.with_attempts();
-    std::string text = "ok: " + std::to_string(c.groups().size()) + (c.groups().size() == 1 ? " group" : " groups") +
-                       ", " + format_number(static_cast<double>(c.total_attempts())) + " attempts in all";
+    std::string text = "ok: " + count_of(c.groups().size(), "group", "groups") + ", " +
+                       format_number(static_cast<double>(c.total_attempts())) + " attempts in all";
     if (groups.size() < c.groups().size())
-        text += " (" + std::to_string(c.groups().size() - groups.size()) + " with no attempts yet, left out of tests)";
+        text += ", " + std::to_string(c.groups().size() - groups.size()) + " with no attempts yet, left out of tests";
     if (groups.size() < 2) return text + "; at least two groups with attempts are needed to compare rates.";
     const auto t = omnibus::table_of(c);
-    text += ", smallest expected count " + format_number(omnibus::expected_counts(t).smallest);
+    const auto e = omnibus::expected_counts(t);
+    text += "; the smallest expected count is " + format_short(e.smallest) + ", " + smallest_expected_place(c, e);
     text += "; " + omnibus::auto_route_advice(c, cache) + ".";
     if (asked && asked->how != omnibus::method::automatic) {
         try {

@@ -190,7 +190,7 @@ private:
             out_.work = work_cap_;
             out_.too_large = true;
             out_.stopped = "the exact enumeration needs more than " +
-                           format_number(static_cast<double>(work_cap_)) + " steps (the table is too large)";
+                           format_number(static_cast<double>(work_cap_)) + " steps, the table is too large";
             return false;
         }
         out_.work = static_cast<std::uint64_t>(pre);

@@ -14,6 +14,7 @@ table table_of(const counts& c) {
     for (const auto& g : c.with_attempts()) {
         t.x.push_back(g.successes);
         t.n.push_back(g.attempts);
+        t.position.push_back(g.position);
         t.successes += g.successes;
         t.attempts += g.attempts;
     }
@@ -29,10 +30,16 @@ expected_summary expected_counts(const table& t) {
     e.smallest = INFINITY;
     const double N = static_cast<double>(t.attempts);
     const double S = static_cast<double>(t.successes);
-    for (auto n : t.n) {
-        for (double E : {static_cast<double>(n) * S / N, static_cast<double>(n) * (N - S) / N}) {
-            e.smallest = std::min(e.smallest, E);
-            if (E < 5.0) ++e.below_five;
+    for (std::size_t g = 0; g < t.groups(); ++g) {
+        const double n = static_cast<double>(t.n[g]);
+        const double E[2] = {n * S / N, n * (N - S) / N};
+        for (int failures = 0; failures < 2; ++failures) {
+            if (E[failures] < e.smallest) {
+                e.smallest = E[failures];
+                e.smallest_position = t.position.empty() ? g + 1 : t.position[g];
+                e.smallest_is_failures = failures == 1;
+            }
+            if (E[failures] < 5.0) ++e.below_five;
         }
     }
     return e;

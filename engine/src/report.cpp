@@ -1,6 +1,7 @@
 // report.cpp - the rows of RATES.SAME.REPORT (see report.hpp).
 #include "tallyrates/report.hpp"
 
+#include "tallyrates/check.hpp"
 #include "tallyrates/errors.hpp"
 #include "tallyrates/text.hpp"
 
@@ -37,9 +38,32 @@ std::vector<report_row> blank_rows() {
             {"groups compared", {}},
             {"smallest expected count", {}},
             {"expected counts below 5", {}},
-            {"standard error of p", {}},
+            {"random tables drawn", {}},
             {"p lies above", {}},
             {"p lies below", {}}};
+}
+
+// Rows 9 and 10: where the p-value lies, and what kind of range that is.
+void range_rows(std::vector<report_row>& rows, const char* kind, double low, double high) {
+    rows[9] = {std::string(kind) + ": from", low};
+    rows[10] = {std::string(kind) + ": to", high};
+}
+
+// The rows the route fills: Monte Carlo's draws and 95 % range for the exact
+// p; an exact route's certified bounds only where they differ from p.
+void route_rows(std::vector<report_row>& rows, const omnibus::result& r) {
+    rows[0].label = statistic_label(r.order);
+    rows[0].value = r.statistic;
+    rows[1].value = static_cast<double>(r.df);
+    rows[2].value = r.p;
+    rows[3].value = std::string(route_text(r.used));
+    rows[4].value = r.why;
+    if (r.has_monte_carlo) {
+        rows[8].value = static_cast<double>(r.mc.draws);
+        range_rows(rows, "95 % range for the exact p", r.mc.low, r.mc.high);
+    } else if (r.has_exact && r.exact.p_low != r.exact.p_high) {
+        range_rows(rows, "exact p certified", r.exact.p_low, r.exact.p_high);
+    }
 }
 
 }  // namespace
@@ -52,11 +76,12 @@ std::vector<report_row> problem_report(const std::string& problem) {
 }
 
 std::vector<report_row> same_rates_report(std::span<const entry> successes, std::span<const entry> attempts,
-                                          const omnibus::options& opt, omnibus::result_cache* cache) {
+                                          std::span<const std::string> labels, const omnibus::options& opt,
+                                          omnibus::result_cache* cache) {
     counts c;
     omnibus::table t;
     try {
-        c = counts::from_entries(successes, attempts);
+        c = counts::from_entries(successes, attempts, labels);
         t = omnibus::table_of(c);
     } catch (const invalid_input& e) {
         return problem_report(e.what());
@@ -64,46 +89,20 @@ std::vector<report_row> same_rates_report(std::span<const entry> successes, std:
     auto rows = blank_rows();
     const auto e = omnibus::expected_counts(t);
     rows[5].value = static_cast<double>(t.groups());
-    rows[6].value = e.smallest;
+    rows[6] = {"smallest expected count: " + smallest_expected_place(c, e), e.smallest};
     rows[7].value = static_cast<double>(e.below_five);
-    omnibus::result r;
     try {
-        r = omnibus::same_rates(c, opt, cache);
+        route_rows(rows, omnibus::same_rates(c, opt, cache));
     } catch (const exact_refused& err) {
         rows[3].value = std::string("none: the exact route does not fit the budget");
         rows[4].value = std::string(err.what());
-        if (err.has_bounds) {  // certified bounds from a coarse enumeration
-            rows[9].value = err.p_low;
-            rows[10].value = err.p_high;
-        }
-        return rows;
+        if (err.has_bounds) range_rows(rows, "exact p certified", err.p_low, err.p_high);
     } catch (const invalid_input& err) {
         rows[3].value = std::string("none: an argument has a problem");
         rows[4].value = std::string(err.what());
-        return rows;
     } catch (const budget_exceeded& err) {
         rows[3].value = std::string("none: the route asked for does not fit the budget");
         rows[4].value = std::string(err.what());
-        return rows;
-    }
-    rows[0].label = statistic_label(r.order);
-    rows[0].value = r.statistic;
-    rows[1].value = static_cast<double>(r.df);
-    rows[2].value = r.p;
-    rows[3].value = std::string(route_text(r.used));
-    rows[4].value = r.why;
-    if (r.has_monte_carlo) {
-        rows[8].value = r.mc.standard_error;
-        rows[9].value = r.mc.low;
-        rows[10].value = r.mc.high;
-        rows[9].label = "p lies above (95% Monte Carlo interval)";
-        rows[10].label = "p lies below (95% Monte Carlo interval)";
-    } else if (r.has_exact || r.used == omnibus::route::all_alike) {
-        // Exact answers carry no sampling error; the certified bounds show the
-        // enumeration's own rounding (normally equal to p).
-        rows[8].value = 0.0;
-        rows[9].value = r.has_exact ? r.exact.p_low : 1.0;
-        rows[10].value = r.has_exact ? r.exact.p_high : 1.0;
     }
     return rows;
 }

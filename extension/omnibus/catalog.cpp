@@ -39,8 +39,10 @@ constexpr std::array check_args{
     argument{"method",
              "A method word of RATES.SAME.P to try as well: the answer then says whether that route fits and what "
              "it would do.",
-             "\"auto\""}};
+             "\"auto\""},
+    shared::labels};
 constexpr std::array same_p_args{successes, attempts, method, draws, seed};
+constexpr std::array report_args{successes, attempts, method, draws, seed, shared::labels};
 constexpr std::array same_stat_args{
     successes, attempts,
     argument{"statistic", "\"pearson\" for Pearson's X² or \"lr\" for the likelihood-ratio G².", "\"pearson\""}};
@@ -71,7 +73,7 @@ constexpr std::array table{
              "Two-column array (label, value) about the test that all groups share one rate: statistic, degrees of "
              "freedom, p-value, route used and why, expected counts, Monte Carlo error or exact bounds. Enter as an "
              "array formula over 11 rows and 2 columns; problems with the input are shown in it.",
-             same_p_args, true},
+             report_args, true},
     function{"trendP", "RATES.TREND.P",
              "p-value of the Cochran-Armitage test for a rate that rises or falls steadily across the groups in "
              "order (two-sided)." WHY_502,

@@ -28,16 +28,18 @@ omnibus::options omnibus_options(const Any& method, const Any& draws, const Any&
 // problem when there is one.
 struct omnibus_inputs {
     std::vector<entry> successes, attempts;
+    std::vector<std::string> labels;
     omnibus::options options;
     std::string problem;
 };
 omnibus_inputs read_inputs(const range& successes, const range& attempts, const Any& method, const Any& draws,
-                           const Any& seed) {
+                           const Any& seed, const Any& labels) {
     omnibus_inputs in;
     try {
         in.successes = convert::range_entries(successes, "successes");
         in.attempts = convert::range_entries(attempts, "attempts");
         in.options = omnibus_options(method, draws, seed);
+        in.labels = convert::optional_texts(labels, "labels");
     } catch (const invalid_input& e) {
         in.problem = e.what();
     } catch (const budget_exceeded& e) {
@@ -54,11 +56,11 @@ trend::result trend_of(const range& successes, const range& attempts, const Any&
 
 }  // namespace
 
-OUString rates::check(const range& successes, const range& attempts, const Any& method) {
+OUString rates::check(const range& successes, const range& attempts, const Any& method, const Any& labels) {
     return guarded([&] {
-        const auto in = read_inputs(successes, attempts, method, Any(), Any());
+        const auto in = read_inputs(successes, attempts, method, Any(), Any(), labels);
         if (!in.problem.empty()) return ou("problem: " + in.problem);
-        return ou(check_text(in.successes, in.attempts, &in.options, &cache_));
+        return ou(check_text(in.successes, in.attempts, in.labels, &in.options, &cache_));
     });
 }
 
@@ -79,11 +81,11 @@ double rates::sameStat(const range& successes, const range& attempts, const Any&
 }
 
 array rates::sameReport(const range& successes, const range& attempts, const Any& method, const Any& draws,
-                        const Any& seed) {
+                        const Any& seed, const Any& labels) {
     return guarded([&] {
-        const auto in = read_inputs(successes, attempts, method, draws, seed);
+        const auto in = read_inputs(successes, attempts, method, draws, seed, labels);
         if (!in.problem.empty()) return convert::to_array(problem_report(in.problem));
-        return convert::to_array(same_rates_report(in.successes, in.attempts, in.options, &cache_));
+        return convert::to_array(same_rates_report(in.successes, in.attempts, in.labels, in.options, &cache_));
     });
 }
 

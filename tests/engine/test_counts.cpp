@@ -73,7 +73,8 @@ TEST(Check, SaysOkWithTheFigures) {
     const std::vector s{num(45), num(171), num(12)}, n{num(50), num(190), num(12)};
     const auto text = check_text(s, n);
     EXPECT_EQ(text.rfind("ok: 3 groups, 252 attempts in all", 0), 0u) << text;
-    EXPECT_NE(text.find("smallest expected count 1.14286"), std::string::npos) << text;
+    // Expected failures of the third group: 12 x 24 / 252 = 1.142857 (arithmetic).
+    EXPECT_NE(text.find("the smallest expected count is 1.14, failures at position 3;"), std::string::npos) << text;
     EXPECT_NE(text.find("below 5"), std::string::npos) << text;
     EXPECT_NE(text.find("uses the exact conditional test"), std::string::npos) << text;
 }
@@ -81,6 +82,17 @@ TEST(Check, SaysOkWithTheFigures) {
 TEST(Check, NamesTheFirstProblem) {
     const std::vector s{num(4), num(9), num(3)}, n{num(10), num(8), num(2)};
     EXPECT_EQ(check_text(s, n), "problem: Position 2 of the range: successes (9) exceed attempts (8).");
+}
+
+TEST(Check, LabelsNameTheGroup) {
+    const std::vector s{num(45), num(171), num(12)}, n{num(50), num(190), num(12)};
+    const std::vector<std::string> labels{"Oven A", "Oven B", "Pilot oven"};
+    EXPECT_NE(check_text(s, n, labels).find("failures at position 3, Pilot oven;"), std::string::npos);
+    const std::vector bad{num(45), num(171), num(13)};
+    EXPECT_EQ(check_text(bad, n, labels),
+              "problem: Position 3 of the range, Pilot oven: successes (13) exceed attempts (12).");
+    const std::vector<std::string> short_labels{"Oven A"};
+    EXPECT_EQ(check_text(s, n, short_labels).rfind("problem: The labels range has 1 cells", 0), 0u);
 }
 
 TEST(Check, LargeExpectedCountsNeedNoCaution) {

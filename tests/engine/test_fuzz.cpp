@@ -84,7 +84,7 @@ TEST(Fuzz, RandomCellsNeverCrashTheValidator) {
             }
         const std::string text = check_text(s, n);
         EXPECT_TRUE(text.rfind("ok", 0) == 0 || text.rfind("problem", 0) == 0) << text;
-        const auto rows = same_rates_report(s, n, omnibus::options{});
+        const auto rows = same_rates_report(s, n, {}, omnibus::options{});
         EXPECT_EQ(rows.size(), same_report_rows);
     }
 }

@@ -80,6 +80,21 @@ class ReferenceValues(SheetCase):
                             want["t_uneven_scores"]["source"])
         self.assertLess(self.value_of("D2"), 0)
 
+    def test_labels_name_the_group(self):
+        # functions.md: CHECK and SAME.REPORT take the group names as their last argument.
+        r = self.put_counts([45, 171, 12], [50, 190, 12])
+        for k, name in enumerate(["Oven A", "Oven B", "Pilot oven"]):
+            self.sheet.getCellRangeByName("C%d" % (k + 1)).setString(name)
+        self.formula("D1", "=RATES.CHECK(%s;;C1:C3)" % r)
+        self.assertIn("failures at position 3, Pilot oven", self.shown("D1"))
+        self.sheet.getCellRangeByName("F1:G11").setArrayFormula("RATES.SAME.REPORT(%s;;;;C1:C3)" % r)
+        self.assertEqual(self.shown("F7"), "smallest expected count: failures at position 3, Pilot oven")
+        # 12 x 24 / 252 expected failures (arithmetic).
+        self.assertAlmostEqual(self.value_of("G7"), 12 * 24 / 252, places=12)
+        self.sheet.getCellRangeByName("A3").setValue(13)
+        self.assertEqual(self.shown("D1"),
+                         "problem: Position 3 of the range, Pilot oven: successes (13) exceed attempts (12).")
+
     def test_a_boost_math_failure_gives_err523(self):
         # Scores so large that their weighted mean overflows make the trend z
         # NaN, and Boost.Math's normal distribution refuses it with a domain
@@ -127,13 +142,19 @@ class Routes(SheetCase):
         self.assertEqual(val(3).getValue(), self.value_of("G1"))
         self.assertEqual(val(4).getString(), "Monte Carlo")
         self.assertEqual(val(2).getValue(), 5)  # degrees of freedom
-        self.assertGreater(val(9).getValue(), 0)  # standard error
-        self.assertLess(val(10).getValue(), val(11).getValue())
+        self.assertEqual(label(9), "random tables drawn")
+        self.assertEqual(val(9).getValue(), 50000)
+        self.assertEqual(label(10), "95 % range for the exact p: from")
+        self.assertLess(val(10).getValue(), val(3).getValue())
+        self.assertLess(val(3).getValue(), val(11).getValue())
         # The exact route in the same report layout.
         self.sheet.getCellRangeByName("D1:E11").setArrayFormula('RATES.SAME.REPORT(%s;"exact")' % r)
         self.doc.calculateAll()
         self.assertEqual(val(4).getString(), "exact conditional")
-        self.assertEqual(val(9).getValue(), 0)
+        # An exact answer has no sampling error and, at the default merge
+        # width, certified bounds equal to p: those rows stay empty.
+        for k in (9, 10, 11):
+            self.assertEqual(val(k).getString(), "", label(k))
 
     def test_refused_exact_route_is_explained(self):
         # A 2 x 12 table of 3,000 attempts: the exact enumeration would pass

@@ -9,10 +9,14 @@
 
 namespace tallyrates {
 
-// Never throws for bad counts: the problem is the answer. With `asked` (a
-// method other than auto), also says what that route would do or why it is
-// refused.
+// Never throws for bad counts: the problem is the answer. `labels` (one per
+// position, or none) name the groups in the sentence. With `asked` (a method
+// other than auto), also says what that route would do or why it is refused.
 std::string check_text(std::span<const entry> successes, std::span<const entry> attempts,
-                       const omnibus::options* asked = nullptr, omnibus::result_cache* cache = nullptr);
+                       std::span<const std::string> labels = {}, const omnibus::options* asked = nullptr,
+                       omnibus::result_cache* cache = nullptr);
+
+// Where the smallest expected count is: "failures at position 4, Pilot oven".
+std::string smallest_expected_place(const counts& c, const omnibus::expected_summary& e);
 
 }  // namespace tallyrates

@@ -44,8 +44,10 @@ inline constexpr std::size_t max_positions = 1u << 21;
 class counts {
 public:
     // Validates two ranges of equal size. Throws invalid_input naming the first
-    // bad position and why.
-    static counts from_entries(std::span<const entry> successes, std::span<const entry> attempts);
+    // bad position (and its label, when labels are given: one per position,
+    // empty for none) and why.
+    static counts from_entries(std::span<const entry> successes, std::span<const entry> attempts,
+                               std::span<const std::string> labels = {});
     // Convenience for tests and internal use: no blank rows, positions 1..G.
     static counts from_values(std::span<const std::int64_t> successes,
                               std::span<const std::int64_t> attempts);
@@ -62,10 +64,14 @@ public:
     // position outside the range. `argument` names the argument in messages.
     const group& at_position(double position, const char* argument) const;
 
+    // How messages name a group: "position 4" or "position 4, Pilot oven".
+    std::string name_of(std::size_t position) const;
+
     bool operator==(const counts&) const = default;
 
 private:
     std::vector<group> groups_;
+    std::vector<std::string> labels_;  // empty, or one per position
     std::size_t range_size_ = 0;
     std::int64_t total_successes_ = 0;
     std::int64_t total_attempts_ = 0;

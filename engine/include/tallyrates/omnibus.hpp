@@ -68,6 +68,7 @@ struct options {
 struct table {
     std::vector<std::int64_t> x;  // successes per group
     std::vector<std::int64_t> n;  // attempts per group
+    std::vector<std::size_t> position;  // each group's 1-based position in the range
     std::int64_t successes = 0;
     std::int64_t attempts = 0;
     std::size_t groups() const { return n.size(); }
@@ -80,6 +81,8 @@ table table_of(const counts& c);
 
 struct expected_summary {
     double smallest = 0;           // smallest expected count over the 2 x G cells
+    std::size_t smallest_position = 0;  // the group it belongs to (position in the range)
+    bool smallest_is_failures = false;  // expected failures rather than successes
     std::size_t below_five = 0;    // cells with expected count < 5
     std::size_t cells = 0;         // 2 x G
 };

@@ -23,8 +23,11 @@ struct report_row {
 
 inline constexpr std::size_t same_report_rows = 11;
 
+// `labels`: one per position, or none; they name the group of the smallest
+// expected count and of a problem found in the counts.
 std::vector<report_row> same_rates_report(std::span<const entry> successes, std::span<const entry> attempts,
-                                          const omnibus::options& opt, omnibus::result_cache* cache = nullptr);
+                                          std::span<const std::string> labels, const omnibus::options& opt,
+                                          omnibus::result_cache* cache = nullptr);
 // The report for a problem found before the counts were looked at (an
 // argument that could not be read).
 std::vector<report_row> problem_report(const std::string& problem);
