@@ -146,6 +146,65 @@ private:
     std::vector<double> pool_, pmf_, scratch_;
 };
 
+// Counts of the blocks one worker thread ran.
+struct tally {
+    std::int64_t extreme = 0, done = 0;
+    std::uint64_t work = 0;
+};
+
+// The blocks id, id + threads, ... of the draws: block b uses the stream of
+// the seed jumped b times. Stops once its work passes the cap (checked after
+// every draw, a compare, so a runaway request stops within one draw of it).
+tally run_blocks(const table& t, const std::vector<detail::term_row>& terms, double thr, std::int64_t draws,
+                 std::uint64_t seed, unsigned id, unsigned threads, std::uint64_t work_cap) {
+    tally out;
+    sampler smp(t, terms);
+    detail::xoshiro256ss rng(seed);
+    std::int64_t at = 0;  // jumps applied to rng
+    const std::int64_t blocks = (draws + block_size - 1) / block_size;
+    for (std::int64_t b = id; b < blocks; b += threads) {
+        for (; at < b; ++at) rng.jump();
+        detail::xoshiro256ss stream = rng;
+        const std::int64_t end = std::min(draws, (b + 1) * block_size);
+        for (std::int64_t d = b * block_size; d < end; ++d) {
+            out.extreme += smp.draw(stream) >= thr;
+            ++out.done;
+            if (smp.work > work_cap) {
+                out.work = smp.work;
+                return out;
+            }
+        }
+    }
+    out.work = smp.work;
+    return out;
+}
+
+// Every block, on `threads` threads; the sum of integer counts is the same
+// for any thread count.
+tally run_all(const table& t, ordering o, std::int64_t draws, std::uint64_t seed, unsigned threads,
+              std::uint64_t work_cap) {
+    const auto terms = detail::term_tables(t, o);
+    const double thr = detail::extreme_threshold(detail::observed_total(t, o), o);
+    const std::int64_t blocks = (draws + block_size - 1) / block_size;
+    threads = std::max(1u, std::min<unsigned>(threads, static_cast<unsigned>(std::min<std::int64_t>(blocks, 64))));
+    std::vector<tally> part(threads);
+    auto worker = [&](unsigned id) { part[id] = run_blocks(t, terms, thr, draws, seed, id, threads, work_cap); };
+    if (threads == 1) {
+        worker(0);
+    } else {
+        std::vector<std::thread> pool;
+        for (unsigned id = 0; id < threads; ++id) pool.emplace_back(worker, id);
+        for (auto& th : pool) th.join();
+    }
+    tally sum;
+    for (const auto& p : part) {
+        sum.extreme += p.extreme;
+        sum.work += p.work;
+        sum.done += p.done;
+    }
+    return sum;
+}
+
 }  // namespace
 
 monte_carlo_outcome monte_carlo_p(const table& t, ordering o, std::int64_t draws, std::uint64_t seed,
@@ -161,55 +220,17 @@ monte_carlo_outcome monte_carlo_p(const table& t, ordering o, std::int64_t draws
         // Only one table has these margins: every draw equals the observed one.
         out.extreme = draws;
     } else {
-        const auto terms = detail::term_tables(t, o);
-        const double thr = detail::extreme_threshold(detail::observed_total(t, o), o);
-        const std::int64_t blocks = (draws + block_size - 1) / block_size;
         // Fitting draws to the work cap stops at a point fixed by the inputs
         // only if blocks run in order: one thread.
-        if (fit_to_work) threads = 1;
-        threads = std::max(1u, std::min<unsigned>(threads, static_cast<unsigned>(std::min<std::int64_t>(blocks, 64))));
-        std::vector<std::int64_t> extreme(threads, 0), done(threads, 0);
-        std::vector<std::uint64_t> work(threads, 0);
-        auto worker = [&](unsigned id) {
-            sampler smp(t, terms);
-            detail::xoshiro256ss rng(seed);
-            std::int64_t at = 0;  // jumps applied to rng
-            for (std::int64_t b = id; b < blocks; b += threads) {
-                for (; at < b; ++at) rng.jump();
-                detail::xoshiro256ss stream = rng;
-                const std::int64_t end = std::min(draws, (b + 1) * block_size);
-                for (std::int64_t d = b * block_size; d < end; ++d) {
-                    extreme[id] += smp.draw(stream) >= thr;
-                    ++done[id];
-                    // Checked after every draw (a compare), so a runaway request
-                    // stops within one draw of its cap.
-                    if (smp.work > work_cap) {
-                        work[id] = smp.work;
-                        return;
-                    }
-                }
-            }
-            work[id] = smp.work;
-        };
-        if (threads == 1) {
-            worker(0);
-        } else {
-            std::vector<std::thread> pool;
-            for (unsigned id = 0; id < threads; ++id) pool.emplace_back(worker, id);
-            for (auto& th : pool) th.join();
-        }
-        std::int64_t total_done = 0;
-        for (unsigned id = 0; id < threads; ++id) {
-            out.extreme += extreme[id];
-            out.work += work[id];
-            total_done += done[id];
-        }
+        const tally sum = run_all(t, o, draws, seed, fit_to_work ? 1 : threads, work_cap);
+        out.extreme = sum.extreme;
+        out.work = sum.work;
         if (fit_to_work) {
-            out.draws = draws = total_done;
+            out.draws = draws = sum.done;
             if (draws < 1000)
                 throw budget_exceeded("Monte Carlo fits only " + format_number(static_cast<double>(draws)) +
                                       " draws into the time budget for counts this large.");
-        } else if (total_done < draws) {
+        } else if (sum.done < draws) {
             throw budget_exceeded("Monte Carlo needed more than " + format_number(static_cast<double>(work_cap)) +
                                   " steps.");
         }
