@@ -9,7 +9,8 @@ namespace tallyrates::catalog::shared {
 inline constexpr argument successes{
     "successes",
     "Cells with the success counts, one group per row (or per column): units within specification, passes. "
-    "Select the column as you keep it, whole columns such as B:B included; rows blank in both ranges are skipped.",
+    "Rows blank in both ranges are skipped, so include spare rows for counts still to come (a whole column "
+    "such as B:B works but recalculates slowly).",
     ""};
 inline constexpr argument attempts{
     "attempts",

@@ -23,15 +23,20 @@ OVENS = [  # name, boards passing, boards run, belt speed (cm/min): invented
     ("Pilot oven, nitrogen", 14, 14, 75),
 ]
 COUNTS = "B5:B11;C5:C11"
+LABELS = "A5:A11"
+# The trend rows use the three air ovens only: the pilot oven also differs in
+# atmosphere, so a trend over all four would mix belt speed with nitrogen.
+AIR = "B5:B7;C5:C7;E5:E7"
 RESULTS = [
-    ("Input check", "=RATES.CHECK(%s)" % COUNTS, None),
+    ("Input check", "=RATES.CHECK(%s;;%s)" % (COUNTS, LABELS), None),
     ("All ovens alike? p-value, automatic route", "=RATES.SAME.P(%s)" % COUNTS, "0.0000"),
     ("p-value, chi-square approximation", '=RATES.SAME.P(%s;"pearson")' % COUNTS, "0.0000"),
     ("p-value, exact conditional", '=RATES.SAME.P(%s;"exact")' % COUNTS, "0.0000"),
     ("p-value, Monte Carlo (100,000 tables)", '=RATES.SAME.P(%s;"montecarlo")' % COUNTS, "0.0000"),
     ("Pearson X²", "=RATES.SAME.STAT(%s)" % COUNTS, "0.000"),
     ("Likelihood ratio G²", '=RATES.SAME.STAT(%s;"lr")' % COUNTS, "0.000"),
-    ("Trend with belt speed, p-value", "=RATES.TREND.P(%s;E5:E11)" % COUNTS, "0.0000"),
+    ("Trend with belt speed, air ovens: p-value", "=RATES.TREND.P(%s)" % AIR, "0.0000"),
+    ("Trend z, below 0: falls as belt speeds up", "=RATES.TREND.Z(%s)" % AIR, "0.00"),
     ("Pilot minus oven A, pass rate", "=RATES.DIFF(%s;4;1)" % COUNTS, "+0.0%;-0.0%"),
 ]
 
@@ -78,7 +83,10 @@ def main():
                 cell("B%d" % r).NumberFormat = number_format(doc, fmt)
         cell("A24").setString("Report of the automatic test (array formula)")
         cell("A24").CharWeight = 150
-        cell("A25:B35").setArrayFormula("RATES.SAME.REPORT(%s)" % COUNTS)
+        cell("A25:B35").setArrayFormula("RATES.SAME.REPORT(%s;;;;%s)" % (COUNTS, LABELS))
+        # Four significant decimals at most: no 15-digit values in the report.
+        cell("B25:B35").NumberFormat = number_format(doc, "#,##0.####")
+        cell("A25:A35").IsTextWrapped = True  # labels that name an oven are long
         cell("A37").setString("Caution: a small p-value says the ovens' rates differ beyond chance; it is not "
                               "engineering acceptance. Follow the standards that apply and have decisions reviewed.")
         # The check sentence wraps in a merged cell across the page; the
@@ -101,13 +109,17 @@ def main():
         style.ScaleToPagesY = 1
         # Pass rate by oven, for the eye: to the right of the tallies.
         rect = Rectangle(20500, 1500, 10500, 6800)
-        area = CellRangeAddress(0, 0, 3, 3, 7)  # A4:D8
-        label_area = CellRangeAddress(0, 0, 3, 0, 7)
-        sheet.Charts.addNewByName("PassRates", rect, (label_area, CellRangeAddress(0, 3, 3, 3, 7)), True, True)
+        # Every row that invites counts (5 to 11), so a new oven appears as it is typed.
+        label_area = CellRangeAddress(0, 0, 3, 0, 10)  # A4:A11
+        sheet.Charts.addNewByName("PassRates", rect, (label_area, CellRangeAddress(0, 3, 3, 3, 10)), True, True)
         chart = sheet.Charts.getByName("PassRates").EmbeddedObject
         chart.HasMainTitle = True
         chart.Title.String = "Pass rate by oven"
         chart.HasLegend = False
+        chart.Diagram.HasXAxisTitle = True
+        chart.Diagram.XAxisTitle.String = "Oven"
+        chart.Diagram.HasYAxisTitle = True
+        chart.Diagram.YAxisTitle.String = "Boards passing inspection"
         doc.calculateAll()
         out = os.path.join(office.workdir, "reflow-oven-trial.fods")
         lo.save_as(doc, out, "OpenDocument Spreadsheet Flat XML")

@@ -36,7 +36,7 @@ def main():
                 print("  %-24s %15s %11s %10s %20s" % tuple(row))
         print()
         errors = []
-        for r in list(range(14, 23)) + list(range(25, 36)):
+        for r in list(range(14, 24)) + list(range(25, 36)):
             label = cell("A%d" % r).getString()
             shown = lo.cell_text(cell("B%d" % r))
             if label:
