@@ -385,6 +385,7 @@ table smallest_first(const table& t_in) {
     for (std::size_t i = 0; i < idx.size(); ++i) {
         t.n[i] = t_in.n[idx[i]];
         t.x[i] = t_in.x[idx[i]];
+        if (i < t_in.position.size()) t.position[i] = t_in.position[idx[i]];
     }
     return t;
 }
