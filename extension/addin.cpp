@@ -15,10 +15,16 @@ namespace {
 
 const catalog::function* find(const OUString& name) { return catalog::by_programmatic(utf8(name)); }
 
+// Calc numbers the arguments as the IDL does, counting the hidden first one
+// (the calling document, which the wizard never shows and the catalog does
+// not list). Measured in LibreOffice 7.4: index 1 is the first visible one.
+constexpr sal_Int32 hidden_arguments = 1;
+
 const catalog::argument* argument(const OUString& name, sal_Int32 index) {
     const auto* f = find(name);
-    if (!f || index < 0 || static_cast<std::size_t>(index) >= f->arguments.size()) return nullptr;
-    return &f->arguments[static_cast<std::size_t>(index)];
+    const sal_Int32 k = index - hidden_arguments;
+    if (!f || k < 0 || static_cast<std::size_t>(k) >= f->arguments.size()) return nullptr;
+    return &f->arguments[static_cast<std::size_t>(k)];
 }
 
 }  // namespace

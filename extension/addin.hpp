@@ -18,8 +18,10 @@
 
 namespace tallyrates::uno {
 
-using css::uno::Any;
+using convert::caller;
+using convert::cells;
 using convert::range;
+using css::uno::Any;
 using rtl::OUString;
 using array = css::uno::Sequence<css::uno::Sequence<css::uno::Any>>;
 
@@ -27,20 +29,22 @@ class rates final : public cppu::WeakImplHelper4<org::tallyrates::sheet::XRates,
                                                  css::lang::XServiceName, css::lang::XServiceInfo> {
 public:
     // ---- omnibus family (omnibus/functions.cpp) ----
-    OUString SAL_CALL check(const range& successes, const range& attempts, const Any& method,
-                           const Any& labels) override;
-    double SAL_CALL sameP(const range& successes, const range& attempts, const Any& method, const Any& draws,
-                          const Any& seed) override;
-    double SAL_CALL sameStat(const range& successes, const range& attempts, const Any& statistic) override;
-    array SAL_CALL sameReport(const range& successes, const range& attempts, const Any& method, const Any& draws,
-                              const Any& seed, const Any& labels) override;
-    double SAL_CALL trendP(const range& successes, const range& attempts, const Any& scores,
+    OUString SAL_CALL check(const caller& document, const cells& successes, const cells& attempts, const Any& method,
+                            const Any& labels) override;
+    double SAL_CALL sameP(const caller& document, const cells& successes, const cells& attempts, const Any& method,
+                          const Any& draws, const Any& seed) override;
+    double SAL_CALL sameStat(const caller& document, const cells& successes, const cells& attempts,
+                             const Any& statistic) override;
+    array SAL_CALL sameReport(const caller& document, const cells& successes, const cells& attempts, const Any& method,
+                              const Any& draws, const Any& seed, const Any& labels) override;
+    double SAL_CALL trendP(const caller& document, const cells& successes, const cells& attempts, const Any& scores,
                            const Any& variance) override;
-    double SAL_CALL trendZ(const range& successes, const range& attempts, const Any& scores,
+    double SAL_CALL trendZ(const caller& document, const cells& successes, const cells& attempts, const Any& scores,
                            const Any& variance) override;
 
     // ---- pairs family (pairs/functions.cpp) ----
-    double SAL_CALL diff(const range& successes, const range& attempts, double i, double j) override;
+    double SAL_CALL diff(const caller& document, const cells& successes, const cells& attempts, double i,
+                         double j) override;
 
     // ---- XAddIn, XServiceName, XServiceInfo (addin.cpp) ----
     OUString SAL_CALL getProgrammaticFuntionName(const OUString& display) override;

@@ -3,14 +3,19 @@
 // every rule about what is allowed, and every message about it, lives in the
 // engine (counts.hpp for count ranges, arguments.hpp for the rest).
 //
-// How Calc passes arguments (addin-recipe.md): ranges declared
-// sequence<sequence<any>> arrive with numbers and booleans as double, text as
-// string and EMPTY CELLS AS AN EMPTY STRING; an omitted `any` argument is
-// VOID; a reference to an empty cell given for an `any` argument arrives as
-// 0.0; a range given there arrives as sequence<sequence<any>>.
+// How Calc passes arguments (addin-recipe.md, DEVELOPERS.md "How range
+// arguments reach us"): count ranges are XCellRange objects, read here down
+// to the last filled row only, with TRUE/FALSE told from numbers by the
+// cells' number format (the calling document's formats say which are
+// logical). Optional arguments are `any`: VOID when omitted, a reference to an
+// empty cell as 0.0, a range as sequence<sequence<any>> with numbers and
+// booleans as double, text as string and EMPTY CELLS AS AN EMPTY STRING.
 #pragma once
 
+#include <com/sun/star/beans/XPropertySet.hpp>
+#include <com/sun/star/table/XCellRange.hpp>
 #include <com/sun/star/uno/Any.hxx>
+#include <com/sun/star/uno/Reference.hxx>
 #include <com/sun/star/uno/Sequence.hxx>
 #include <optional>
 #include <string>
@@ -22,10 +27,22 @@
 namespace tallyrates::convert {
 
 using range = css::uno::Sequence<css::uno::Sequence<css::uno::Any>>;
+using cells = css::uno::Reference<css::table::XCellRange>;
+using caller = css::uno::Reference<css::beans::XPropertySet>;
+
+// A count range as a line of cells: its first `count` cells are read (fewer
+// if the range is shorter), the rest count as blank. `document` may be empty
+// (a call from outside Calc): booleans then read as numbers.
+cell_line line_of(const caller& document, const cells& range, const char* argument, std::size_t count);
+
+// How far a count range is filled: the cells up to and including its last
+// filled one (ranges of up to a few thousand cells count as filled to the end:
+// reading them is cheaper than asking).
+std::size_t filled_length(const cells& range, const char* argument);
 
 // One column or one row of cells, in order (a block of several rows and
 // columns is refused by arguments::not_one_line).
-std::vector<entry> range_entries(const range& cells, const char* argument);
+std::vector<entry> range_entries(const range& values, const char* argument);
 
 // One cell value. Calc sends booleans as doubles too; a cell styled as
 // boolean cannot be told from 1/0 here, which the count rules accept.
@@ -41,8 +58,14 @@ std::vector<entry> optional_range(const css::uno::Any& a, const char* argument);
 // they would be typed, blank cells empty; nothing when omitted.
 std::vector<std::string> optional_texts(const css::uno::Any& a, const char* argument);
 
+// The two count ranges of a call, each read as far as either is filled.
+struct count_lines {
+    cell_line successes, attempts;
+};
+count_lines lines_of(const caller& document, const cells& successes, const cells& attempts);
+
 // The two count ranges of a call, validated (engine rules, counts.hpp).
-counts counts_of(const range& successes, const range& attempts);
+counts counts_of(const caller& document, const cells& successes, const cells& attempts);
 
 // Label/value rows (RATES.SAME.REPORT) as a two-column array result.
 range to_array(const std::vector<report_row>& rows);

@@ -14,7 +14,7 @@ std::string smallest_expected_place(const counts& c, const omnibus::expected_sum
     return std::string(e.smallest_is_failures ? "failures" : "successes") + " at " + c.name_of(e.smallest_position);
 }
 
-std::string check_text(std::span<const entry> successes, std::span<const entry> attempts,
+std::string check_text(const cell_line& successes, const cell_line& attempts,
                        std::span<const std::string> labels, const omnibus::options* asked,
                        omnibus::result_cache* cache) {
     counts c;

@@ -1,6 +1,7 @@
 // counts.cpp - validation of tally ranges (rules: functions.md, "Shared conventions").
 #include "tallyrates/counts.hpp"
 
+#include <algorithm>
 #include <cmath>
 
 #include "tallyrates/arguments.hpp"
@@ -22,18 +23,20 @@ std::string where(std::size_t position, std::span<const std::string> labels) {
 }
 
 // A count cell that is filled: returns its whole value or throws.
-std::int64_t whole_count(const entry& e, const char* what, std::size_t position,
-                         std::span<const std::string> labels) {
+std::int64_t whole_count(const entry& e, const char* what, std::size_t position, std::span<const std::string> labels) {
     switch (e.what) {
         case entry::kind::text:
             throw invalid_input(where(position, labels) + ": the " + what + " cell holds text, not a count.", position);
+        case entry::kind::error:
+            throw invalid_input(
+                where(position, labels) + ": the " + what + " cell shows an error value; correct that cell first.",
+                position);
         case entry::kind::boolean:
-            throw invalid_input(where(position, labels) + ": the " + what +
-                                    " cell holds a logical value (TRUE/FALSE), not a count.",
-                                position);
+            throw invalid_input(
+                where(position, labels) + ": the " + what + " cell holds a logical value (TRUE/FALSE), not a count.",
+                position);
         case entry::kind::blank:
-        case entry::kind::number:
-            break;
+        case entry::kind::number: break;
     }
     const double v = e.value;
     if (!std::isfinite(v))
@@ -43,50 +46,60 @@ std::int64_t whole_count(const entry& e, const char* what, std::size_t position,
                                 "); counts are whole numbers of 0 or more.",
                             position);
     if (v != std::floor(v))
-        throw invalid_input(where(position, labels) + ": " + what + " is not a whole number (" + format_number(v) + ").",
-                            position);
+        throw invalid_input(
+            where(position, labels) + ": " + what + " is not a whole number (" + format_number(v) + ").", position);
     if (v > max_count)
-        throw invalid_input(where(position, labels) + ": " + what + " (" + format_number(v) + ") is above the largest count accepted (1e15).",
+        throw invalid_input(where(position, labels) + ": " + what + " (" + format_number(v) +
+                                ") is above the largest count accepted (1e15).",
                             position);
     return static_cast<std::int64_t>(v);
 }
 
 }  // namespace
 
-counts counts::from_entries(std::span<const entry> successes, std::span<const entry> attempts,
+counts counts::from_entries(const cell_line& successes, const cell_line& attempts,
                             std::span<const std::string> labels) {
-    if (successes.size() != attempts.size())
-        throw invalid_input("The successes range has " + std::to_string(successes.size()) +
-                            " cells and the attempts range " + std::to_string(attempts.size()) +
+    if (successes.length != attempts.length)
+        throw invalid_input("The successes range has " + std::to_string(successes.length) +
+                            " cells and the attempts range " + std::to_string(attempts.length) +
                             "; select two ranges of the same size, one group per row.");
-    if (successes.size() > max_positions)
-        throw invalid_input("The ranges have " + std::to_string(successes.size()) +
-                            " cells; at most " + std::to_string(max_positions) + " are accepted.");
-    if (!labels.empty() && labels.size() != successes.size())
+    if (successes.length > max_positions)
+        throw invalid_input("The ranges have " + std::to_string(successes.length) + " cells; at most " +
+                            std::to_string(max_positions) + " are accepted.");
+    if (!labels.empty() && labels.size() != successes.length)
         throw invalid_input("The labels range has " + std::to_string(labels.size()) + " cells and the count ranges " +
-                            std::to_string(successes.size()) + "; give one label per row.");
+                            std::to_string(successes.length) + "; give one label per row.");
     counts c;
-    c.range_size_ = successes.size();
+    c.range_size_ = successes.length;
     c.labels_.assign(labels.begin(), labels.end());
-    for (std::size_t k = 0; k < successes.size(); ++k) {
+    // Past the cells read, both lines are blank: nothing more to look at.
+    const std::size_t read = std::min(successes.length, std::max(successes.cells.size(), attempts.cells.size()));
+    for (std::size_t k = 0; k < read; ++k) {
         const std::size_t position = k + 1;
-        const bool s_blank = successes[k].what == entry::kind::blank;
-        const bool n_blank = attempts[k].what == entry::kind::blank;
+        const entry s = successes.at(k), n = attempts.at(k);
+        const bool s_blank = s.what == entry::kind::blank;
+        const bool n_blank = n.what == entry::kind::blank;
         if (s_blank && n_blank) continue;  // a row still to be filled in: skipped
-        if (s_blank || n_blank)
-            throw invalid_input(where(position, labels) + ": " + (s_blank ? "successes" : "attempts") +
-                                    " is blank but " + (s_blank ? "attempts" : "successes") +
-                                    " is filled; fill both cells or clear both.",
-                                position);
-        const std::int64_t x = whole_count(successes[k], "successes", position, labels);
-        const std::int64_t n = whole_count(attempts[k], "attempts", position, labels);
-        if (x > n)
+        // Column headings above the first counts (a whole column such as B:B
+        // takes in the heading row): text in both cells there is skipped.
+        if (c.groups_.empty() && s.what == entry::kind::text && n.what == entry::kind::text) continue;
+        if (s_blank || n_blank) {
+            // An error value is the problem to name, whatever its neighbour holds.
+            if (s.what != entry::kind::error && n.what != entry::kind::error)
+                throw invalid_input(where(position, labels) + ": " + (s_blank ? "successes" : "attempts") +
+                                        " is blank but " + (s_blank ? "attempts" : "successes") +
+                                        " is filled; fill both cells or clear both.",
+                                    position);
+        }
+        const std::int64_t x = whole_count(s, "successes", position, labels);
+        const std::int64_t n_count = whole_count(n, "attempts", position, labels);
+        if (x > n_count)
             throw invalid_input(where(position, labels) + ": successes (" + std::to_string(x) + ") exceed attempts (" +
-                                    std::to_string(n) + ").",
+                                    std::to_string(n_count) + ").",
                                 position);
-        c.groups_.push_back({position, x, n});
+        c.groups_.push_back({position, x, n_count});
         c.total_successes_ += x;
-        c.total_attempts_ += n;
+        c.total_attempts_ += n_count;
         if (static_cast<double>(c.total_attempts_) > max_count)
             throw invalid_input("The attempts add up to more than the largest total accepted (1e15).", position);
     }

@@ -75,7 +75,7 @@ std::vector<report_row> problem_report(const std::string& problem) {
     return rows;
 }
 
-std::vector<report_row> same_rates_report(std::span<const entry> successes, std::span<const entry> attempts,
+std::vector<report_row> same_rates_report(const cell_line& successes, const cell_line& attempts,
                                           std::span<const std::string> labels, const omnibus::options& opt,
                                           omnibus::result_cache* cache) {
     counts c;

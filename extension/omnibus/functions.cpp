@@ -15,11 +15,10 @@ namespace {
 omnibus::options omnibus_options(const Any& method, const Any& draws, const Any& seed) {
     omnibus::options o;
     o.how = arguments::keyword_or(convert::word(method, "method"), o.how, keywords::omnibus_method, "method");
-    o.draws = arguments::whole_or(convert::number(draws, "draws"), o.draws, 1,
-                                  static_cast<double>(o.caps.max_draws), "draws");
-    o.seed = static_cast<std::uint64_t>(arguments::whole_or(convert::number(seed, "seed"),
-                                                            static_cast<std::int64_t>(o.seed), 0, omnibus::max_seed,
-                                                            "seed"));
+    o.draws = arguments::whole_or(convert::number(draws, "draws"), o.draws, 1, static_cast<double>(o.caps.max_draws),
+                                  "draws");
+    o.seed = static_cast<std::uint64_t>(arguments::whole_or(
+        convert::number(seed, "seed"), static_cast<std::int64_t>(o.seed), 0, omnibus::max_seed, "seed"));
     return o;
 }
 
@@ -27,17 +26,16 @@ omnibus::options omnibus_options(const Any& method, const Any& draws, const Any&
 // of an error, so they read their arguments through this and show the
 // problem when there is one.
 struct omnibus_inputs {
-    std::vector<entry> successes, attempts;
+    convert::count_lines counts;
     std::vector<std::string> labels;
     omnibus::options options;
     std::string problem;
 };
-omnibus_inputs read_inputs(const range& successes, const range& attempts, const Any& method, const Any& draws,
-                           const Any& seed, const Any& labels) {
+omnibus_inputs read_inputs(const caller& document, const cells& successes, const cells& attempts, const Any& method,
+                           const Any& draws, const Any& seed, const Any& labels) {
     omnibus_inputs in;
     try {
-        in.successes = convert::range_entries(successes, "successes");
-        in.attempts = convert::range_entries(attempts, "attempts");
+        in.counts = convert::lines_of(document, successes, attempts);
         in.options = omnibus_options(method, draws, seed);
         in.labels = convert::optional_texts(labels, "labels");
     } catch (const invalid_input& e) {
@@ -48,53 +46,58 @@ omnibus_inputs read_inputs(const range& successes, const range& attempts, const 
     return in;
 }
 
-trend::result trend_of(const range& successes, const range& attempts, const Any& scores, const Any& variance) {
+trend::result trend_of(const caller& document, const cells& successes, const cells& attempts, const Any& scores,
+                       const Any& variance) {
     const auto v = arguments::keyword_or(convert::word(variance, "variance"), trend::variance::binomial,
                                          keywords::trend_variance, "variance");
-    return trend::test(convert::counts_of(successes, attempts), convert::optional_range(scores, "scores"), v);
+    return trend::test(convert::counts_of(document, successes, attempts), convert::optional_range(scores, "scores"), v);
 }
 
 }  // namespace
 
-OUString rates::check(const range& successes, const range& attempts, const Any& method, const Any& labels) {
+OUString rates::check(const caller& document, const cells& successes, const cells& attempts, const Any& method,
+                      const Any& labels) {
     return guarded([&] {
-        const auto in = read_inputs(successes, attempts, method, Any(), Any(), labels);
+        const auto in = read_inputs(document, successes, attempts, method, Any(), Any(), labels);
         if (!in.problem.empty()) return ou("problem: " + in.problem);
-        return ou(check_text(in.successes, in.attempts, in.labels, &in.options, &cache_));
+        return ou(check_text(in.counts.successes, in.counts.attempts, in.labels, &in.options, &cache_));
     });
 }
 
-double rates::sameP(const range& successes, const range& attempts, const Any& method, const Any& draws,
-                    const Any& seed) {
+double rates::sameP(const caller& document, const cells& successes, const cells& attempts, const Any& method,
+                    const Any& draws, const Any& seed) {
     return guarded([&] {
         const auto o = omnibus_options(method, draws, seed);
-        return finite(omnibus::same_rates(convert::counts_of(successes, attempts), o, &cache_).p);
+        return finite(omnibus::same_rates(convert::counts_of(document, successes, attempts), o, &cache_).p);
     });
 }
 
-double rates::sameStat(const range& successes, const range& attempts, const Any& statistic) {
+double rates::sameStat(const caller& document, const cells& successes, const cells& attempts, const Any& statistic) {
     return guarded([&] {
         const auto which = arguments::keyword_or(convert::word(statistic, "statistic"), omnibus::ordering::pearson,
                                                  keywords::statistic, "statistic");
-        return finite(omnibus::statistic(omnibus::table_of(convert::counts_of(successes, attempts)), which));
+        return finite(omnibus::statistic(omnibus::table_of(convert::counts_of(document, successes, attempts)), which));
     });
 }
 
-array rates::sameReport(const range& successes, const range& attempts, const Any& method, const Any& draws,
-                        const Any& seed, const Any& labels) {
+array rates::sameReport(const caller& document, const cells& successes, const cells& attempts, const Any& method,
+                        const Any& draws, const Any& seed, const Any& labels) {
     return guarded([&] {
-        const auto in = read_inputs(successes, attempts, method, draws, seed, labels);
+        const auto in = read_inputs(document, successes, attempts, method, draws, seed, labels);
         if (!in.problem.empty()) return convert::to_array(problem_report(in.problem));
-        return convert::to_array(same_rates_report(in.successes, in.attempts, in.labels, in.options, &cache_));
+        return convert::to_array(
+            same_rates_report(in.counts.successes, in.counts.attempts, in.labels, in.options, &cache_));
     });
 }
 
-double rates::trendP(const range& successes, const range& attempts, const Any& scores, const Any& variance) {
-    return guarded([&] { return finite(trend_of(successes, attempts, scores, variance).p); });
+double rates::trendP(const caller& document, const cells& successes, const cells& attempts, const Any& scores,
+                     const Any& variance) {
+    return guarded([&] { return finite(trend_of(document, successes, attempts, scores, variance).p); });
 }
 
-double rates::trendZ(const range& successes, const range& attempts, const Any& scores, const Any& variance) {
-    return guarded([&] { return finite(trend_of(successes, attempts, scores, variance).z); });
+double rates::trendZ(const caller& document, const cells& successes, const cells& attempts, const Any& scores,
+                     const Any& variance) {
+    return guarded([&] { return finite(trend_of(document, successes, attempts, scores, variance).z); });
 }
 
 }  // namespace tallyrates::uno

@@ -7,8 +7,9 @@
 
 namespace tallyrates::uno {
 
-double rates::diff(const range& successes, const range& attempts, double i, double j) {
-    return guarded([&] { return finite(pairwise::difference(convert::counts_of(successes, attempts), i, j)); });
+double rates::diff(const caller& document, const cells& successes, const cells& attempts, double i, double j) {
+    return guarded(
+        [&] { return finite(pairwise::difference(convert::counts_of(document, successes, attempts), i, j)); });
 }
 
 }  // namespace tallyrates::uno

@@ -25,6 +25,15 @@ void expect_bad(std::vector<entry> s, std::vector<entry> n, std::size_t position
         EXPECT_NE(std::string(e.what()).find(words), std::string::npos) << e.what();
     }
 }
+
+void expect_bad_lines(const cell_line& s, const cell_line& n, const std::string& words) {
+    try {
+        counts::from_entries(s, n);
+        FAIL() << "no error; expected: " << words;
+    } catch (const invalid_input& e) {
+        EXPECT_NE(std::string(e.what()).find(words), std::string::npos) << e.what();
+    }
+}
 }  // namespace
 
 TEST(Counts, BlankRowsAreSkippedButKeepTheirPositions) {
@@ -37,6 +46,44 @@ TEST(Counts, BlankRowsAreSkippedButKeepTheirPositions) {
     EXPECT_EQ(c.total_successes(), 8);
     EXPECT_EQ(c.total_attempts(), 18);
     EXPECT_EQ(c.at_position(3, "i").successes, 5);
+}
+
+TEST(Counts, AWholeColumnIsReadOnlyToItsLastFilledRow) {
+    // A line read partly (convert.hpp: a whole column B:B is read down to its
+    // last filled row): the unread rest is blank, positions keep counting to
+    // the end of the range, and two lines of equal length may be read to
+    // different depths.
+    const cell_line s({entry::text(), num(3), num(5)}, 1048576);
+    const cell_line n({entry::text(), num(10), num(8), blank()}, 1048576);
+    const auto c = counts::from_entries(s, n);
+    ASSERT_EQ(c.groups().size(), 2u);
+    EXPECT_EQ(c.range_size(), 1048576u);
+    EXPECT_EQ(c.groups()[1].position, 3u);
+    // A position in the unread blank rest is a blank row, not outside the range.
+    try {
+        (void)c.at_position(5000, "i");
+        FAIL();
+    } catch (const invalid_input& e) {
+        EXPECT_NE(std::string(e.what()).find("a blank row"), std::string::npos) << e.what();
+    }
+    // Lengths are what must agree, not how far each was read.
+    expect_bad_lines(cell_line({num(1)}, 9), cell_line({num(2)}, 8), "the attempts range 8");
+}
+
+TEST(Counts, HeadingsAboveTheCountsAreSkippedTextBelowIsNot) {
+    // Column headings in the first row of a whole column ("Passed", "Made")
+    // are not counts (functions.md: text in a count cell is refused, except a
+    // heading row above the first counts, our convention for whole columns).
+    const auto c = counts::from_entries(std::vector{entry::text(), num(3)}, std::vector{entry::text(), num(10)});
+    EXPECT_EQ(c.groups().size(), 1u);
+    expect_bad({num(3), entry::text()}, {num(10), entry::text()}, 2, "holds text");
+    expect_bad({entry::text(), num(3)}, {num(4), num(10)}, 1, "holds text");
+}
+
+TEST(Counts, ACellShowingAnErrorIsNamed) {
+    // Even beside a blank cell, the error value is the problem reported.
+    expect_bad({num(3), entry::error()}, {num(10), blank()}, 2, "the successes cell shows an error value");
+    expect_bad({num(3), blank()}, {num(10), entry::error()}, 2, "the attempts cell shows an error value");
 }
 
 TEST(Counts, PositionsOutsideOrBlankAreErrors) {

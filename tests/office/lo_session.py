@@ -63,26 +63,41 @@ class Office:
         self.desktop = None
 
     def install(self):
+        """The extension installed into the fresh profile."""
+        self._first_start()
+        r = _as_profile_owner([PROGRAM + "/unopkg", "add", "-s", "-f",
+                               "-env:UserInstallation=" + file_url(self.profile), self.oxt], self.profile)
+        if r.returncode != 0:
+            raise RuntimeError("unopkg add failed: " + r.stdout + r.stderr)
+        self._recalculate_on_load()
+        return self
+
+    def without_extension(self):
+        """A fresh profile with nothing added: a colleague's LibreOffice."""
+        self._first_start()
+        self._recalculate_on_load()
+        return self
+
+    def _first_start(self):
         # A profile made by unopkg alone loses the registration at soffice's
         # first start (its first-start set-up redoes the extension layer):
         # let soffice create the profile first, then add the package.
         self.start()
         self.stop()
-        r = _as_profile_owner([PROGRAM + "/unopkg", "add", "-s", "-f",
-                               "-env:UserInstallation=" + file_url(self.profile), self.oxt], self.profile)
-        if r.returncode != 0:
-            raise RuntimeError("unopkg add failed: " + r.stdout + r.stderr)
+
+    def _recalculate_on_load(self):
         # Recalculate saved files on load (0 = always), so reloaded workbooks are
         # computed by the extension, not shown from cached values.
         reg = os.path.join(self.profile, "user", "registrymodifications.xcu")
         with open(reg) as f:
             text = f.read()
         item = ('<item oor:path="/org.openoffice.Office.Calc/Formula/Load"><prop oor:name="ODFRecalcMode" '
+                'oor:op="fuse"><value>0</value></prop></item>\n'
+                '<item oor:path="/org.openoffice.Office.Calc/Formula/Load"><prop oor:name="OOXMLRecalcMode" '
                 'oor:op="fuse"><value>0</value></prop></item>\n')
         text = text.replace("</oor:items>", item + "</oor:items>")
         with open(reg, "w") as f:
             f.write(text)
-        return self
 
     def start(self, timeout=90):
         self.port = _free_port()
@@ -133,6 +148,9 @@ class Office:
                 self.proc.kill()
                 self.proc.wait()
         self.desktop = None
+        if getattr(self, "log", None) is not None:
+            self.log.close()
+            self.log = None
 
 
 def save_as(doc, path, filter_name):

@@ -42,5 +42,70 @@ class SaveAndReload(SheetCase):
         self.assertNotEqual(self.value_of("D1"), before[0])
 
 
+class SharedWithAColleague(SheetCase):
+    """A workbook made with the extension, opened, edited and saved by a
+    LibreOffice without it, then reopened with it: the formulas and their
+    results come back (README, "Sharing workbooks")."""
+
+    FORMULAS = {
+        "D1": '=RATES.SAME.P(A1:A4;B1:B4;"pearson")',
+        "D2": "=RATES.CHECK(A1:A4;B1:B4;;C1:C4)",
+        "D3": "=RATES.DIFF(A1:A4;B1:B4;1;3)",
+        "D4": '=RATES.TREND.Z(A1:A4;B1:B4;;"conditional")',
+    }
+
+    def make_workbook(self):
+        self.put_counts([45, 171, 12, 30], [50, 190, 12, 40])
+        for k, name in enumerate(["Line 1", "Line 2", "Pilot", "Line 4"]):
+            self.sheet.getCellRangeByName("C%d" % (k + 1)).setString(name)
+        for address, text in self.FORMULAS.items():
+            self.formula(address, text)
+        self.sheet.getCellRangeByName("F1:G11").setArrayFormula("RATES.SAME.REPORT(A1:A4;B1:B4;;;;C1:C4)")
+        self.doc.calculateAll()
+        return self.results(self.sheet)
+
+    @staticmethod
+    def results(sheet):
+        cells = [sheet.getCellRangeByName(a) for a in ("D1", "D2", "D3", "D4", "G3", "G4")]
+        return [harness.lo.cell_text(c) if c.getError() else (c.getString() or c.getValue()) for c in cells]
+
+    def test_ods_and_xlsx_round_trip_through_an_office_without_the_extension(self):
+        before = self.make_workbook()
+        self.assertNotIn("Err", str(before))
+        plain = harness.lo.Office(os.environ["TALLYRATES_OXT"]).without_extension().start()
+        try:
+            for suffix, filter_name in (("ods", "calc8"), ("xlsx", "Calc Office Open XML")):
+                with self.subTest(suffix):
+                    # Inside the office work folders: soffice may run as another user.
+                    first = os.path.join(harness.OFFICE.workdir, "shared." + suffix)
+                    harness.lo.save_as(self.doc, first, filter_name)
+                    # The colleague's office: our cells cannot compute there; a
+                    # note is typed and the workbook saved in the same format.
+                    other = plain.load(first)
+                    sheet = other.Sheets.getByIndex(0)
+                    other.calculateAll()
+                    self.assertNotEqual(sheet.getCellRangeByName("D1").getError(), 0, "computed without the extension?")
+                    sheet.getCellRangeByName("H1").setString("seen by QA")
+                    second = os.path.join(plain.workdir, "shared-back." + suffix)
+                    harness.lo.save_as(other, second, filter_name)
+                    other.close(True)
+                    # Back with the extension: same formulas, same results.
+                    back = harness.OFFICE.load(second)
+                    try:
+                        sheet = back.Sheets.getByIndex(0)
+                        back.calculateAll()
+                        self.assertEqual(sheet.getCellRangeByName("H1").getString(), "seen by QA")
+                        self.assertEqual(sheet.getCellRangeByName("D1").getFormula(),
+                                         '=ORG.TALLYRATES.SHEET.RATES.SAMEP(A1:A4;B1:B4;"pearson")')
+                        self.assertEqual(self.results(sheet), before)
+                        sheet.getCellRangeByName("A1").setValue(40)  # still live
+                        back.calculateAll()
+                        self.assertNotEqual(sheet.getCellRangeByName("D1").getValue(), before[0])
+                    finally:
+                        back.close(True)
+        finally:
+            plain.stop()
+
+
 if __name__ == "__main__":
     harness.main()

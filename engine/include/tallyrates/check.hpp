@@ -12,7 +12,7 @@ namespace tallyrates {
 // Never throws for bad counts: the problem is the answer. `labels` (one per
 // position, or none) name the groups in the sentence. With `asked` (a method
 // other than auto), also says what that route would do or why it is refused.
-std::string check_text(std::span<const entry> successes, std::span<const entry> attempts,
+std::string check_text(const cell_line& successes, const cell_line& attempts,
                        std::span<const std::string> labels = {}, const omnibus::options* asked = nullptr,
                        omnibus::result_cache* cache = nullptr);
 

@@ -11,13 +11,14 @@
 #include <cstdint>
 #include <span>
 #include <string>
+#include <utility>
 #include <vector>
 
 namespace tallyrates {
 
 // What one worksheet cell held, as far as the rules care.
 struct entry {
-    enum class kind { blank, number, text, boolean };
+    enum class kind { blank, number, text, boolean, error };
     kind what = kind::blank;
     double value = 0.0;  // meaningful for kind::number only
 
@@ -25,6 +26,21 @@ struct entry {
     static entry number(double v) { return {kind::number, v}; }
     static entry text() { return {kind::text, 0.0}; }
     static entry boolean() { return {kind::boolean, 0.0}; }
+    static entry error() { return {kind::error, 0.0}; }  // a cell showing an error value
+};
+
+// One range argument as read from the sheet: its first cells, in order, and
+// the length of the whole range. Cells past `cells.size()` (up to `length`)
+// are blank: a whole column is read only down to its last filled row.
+struct cell_line {
+    std::vector<entry> cells;
+    std::size_t length = 0;
+
+    cell_line() = default;
+    // A range read in full (tests, arrays): implicit on purpose.
+    cell_line(std::vector<entry> all) : cells(std::move(all)), length(cells.size()) {}  // NOLINT
+    cell_line(std::vector<entry> first, std::size_t whole) : cells(std::move(first)), length(whole) {}
+    entry at(std::size_t k) const { return k < cells.size() ? cells[k] : entry::blank(); }
 };
 
 // One group with data: its 1-based position in the range and its tallies.
@@ -46,11 +62,10 @@ public:
     // Validates two ranges of equal size. Throws invalid_input naming the first
     // bad position (and its label, when labels are given: one per position,
     // empty for none) and why.
-    static counts from_entries(std::span<const entry> successes, std::span<const entry> attempts,
+    static counts from_entries(const cell_line& successes, const cell_line& attempts,
                                std::span<const std::string> labels = {});
     // Convenience for tests and internal use: no blank rows, positions 1..G.
-    static counts from_values(std::span<const std::int64_t> successes,
-                              std::span<const std::int64_t> attempts);
+    static counts from_values(std::span<const std::int64_t> successes, std::span<const std::int64_t> attempts);
 
     // Non-blank rows, in range order (attempts may be 0).
     const std::vector<group>& groups() const { return groups_; }

@@ -25,7 +25,7 @@ inline constexpr std::size_t same_report_rows = 11;
 
 // `labels`: one per position, or none; they name the group of the smallest
 // expected count and of a problem found in the counts.
-std::vector<report_row> same_rates_report(std::span<const entry> successes, std::span<const entry> attempts,
+std::vector<report_row> same_rates_report(const cell_line& successes, const cell_line& attempts,
                                           std::span<const std::string> labels, const omnibus::options& opt,
                                           omnibus::result_cache* cache = nullptr);
 // The report for a problem found before the counts were looked at (an
