@@ -1,10 +1,18 @@
 #!/usr/bin/python3
-"""Sheet-level benchmark: recalculates a sheet of BLOCKS 2 x 3 tables, once
-with RATES.SAME.P (Pearson route) and once with the built-in CHISQ.TEST on
-the same counts, in a real headless LibreOffice with the installed .oxt, and
-prints the time of each and their ratio. A figure for the README, not a test.
+"""Sheet-level benchmarks in a real headless LibreOffice with the installed
+.oxt; figures for the README, not tests.
 
     /usr/bin/python3 tests/bench/sheet_bench.py build/tallyrates.oxt [BLOCKS]
+recalculates a sheet of BLOCKS 2 x 3 tables, once with RATES.SAME.P (Pearson
+route) and once with the built-in CHISQ.TEST on the same counts, and prints
+the time of each and their ratio.
+
+    /usr/bin/python3 tests/bench/sheet_bench.py build/tallyrates.oxt ranges
+prints what one formula cell costs per recalculation when its count ranges
+are whole columns (A:A) against the same formula on the exact used rows,
+beside CHISQ.TEST on the same counts, for a short tally (4 groups) and a long
+one (3,000 groups); also an optional range argument (labels) given as a
+whole column. CELLS formula cells read the same ranges.
 """
 import os
 import sys
@@ -14,21 +22,38 @@ sys.path.insert(0, os.path.join(os.path.dirname(os.path.abspath(__file__)), ".."
 import lo_session as lo  # noqa: E402
 
 
-def fill(sheet, blocks):
+def with_expected(rows):
+    """[successes, failures, attempts] rows plus the expected successes and
+    failures under one shared rate (what CHISQ.TEST needs)."""
+    S = sum(r[0] for r in rows)
+    N = sum(r[2] for r in rows)
+    return [r + [r[2] * S / N, r[2] * (N - S) / N] for r in rows]
+
+
+def fill_blocks(sheet, blocks):
     # Columns: A successes, B failures, C attempts, D..E expected counts, F formula.
     data = []
     for k in range(blocks):
+        rows = []
         for g in range(3):
             n = 40 + (k * 7 + g * 13) % 60
             x = (n * (30 + (k * 11 + g * 5) % 50)) // 100
-            data.append([x, n - x, n])
-    for k in range(blocks):
-        rows = data[3 * k:3 * k + 3]
-        S = sum(r[0] for r in rows)
-        N = sum(r[2] for r in rows)
-        for r in rows:
-            r += [r[2] * S / N, r[2] * (N - S) / N]
+            rows.append([x, n - x, n])
+        data += with_expected(rows)
     sheet.getCellRangeByName("A1:E%d" % (3 * blocks)).setDataArray(tuple(tuple(float(v) for v in r) for r in data))
+
+
+def fill_tally(sheet, groups):
+    # Row 1 headings; then as fill_blocks, one tally of `groups` rows, F a label.
+    rows = []
+    for g in range(groups):
+        n = 40 + (g * 13) % 60
+        x = (n * (30 + (g * 11) % 50)) // 100
+        rows.append([x, n - x, n])
+    data = tuple(tuple(float(v) for v in r) for r in with_expected(rows))
+    sheet.getCellRangeByName("A1:F1").setDataArray((("Passed", "Failed", "Made", "E pass", "E fail", "Line"),))
+    sheet.getCellRangeByName("A2:E%d" % (groups + 1)).setDataArray(data)
+    sheet.getCellRangeByName("F2:F%d" % (groups + 1)).setDataArray(tuple(("L%d" % g,) for g in range(groups)))
 
 
 def timed_recalc(doc, repeats=3):
@@ -40,24 +65,61 @@ def timed_recalc(doc, repeats=3):
     return best
 
 
+def blocks_against_chisq_test(office, blocks):
+    results = {}
+    for name, formula in (("RATES.SAME.P", '=RATES.SAME.P(A{a}:A{b};C{a}:C{b};"pearson")'),
+                          ("CHISQ.TEST", "=CHISQ.TEST(A{a}:B{b};D{a}:E{b})")):
+        doc = office.new_sheet()
+        sheet = doc.Sheets.getByIndex(0)
+        fill_blocks(sheet, blocks)
+        cells = [(formula.format(a=3 * k + 1, b=3 * k + 3),) for k in range(blocks)]
+        sheet.getCellRangeByName("F1:F%d" % blocks).setFormulaArray(tuple(cells))
+        results[name] = timed_recalc(doc)
+        doc.close(True)
+    for name, secs in results.items():
+        print("%-13s %6d cells: %.1f ms per recalculation, %.2f us per cell"
+              % (name, blocks, secs * 1e3, secs * 1e6 / blocks))
+    print("ratio RATES.SAME.P / CHISQ.TEST: %.2f" % (results["RATES.SAME.P"] / results["CHISQ.TEST"]))
+
+
+CELLS = 20
+
+
+def per_cell_us(doc, sheet, formula):
+    sheet.getCellRangeByName("H1:H%d" % CELLS).setFormulaArray(tuple((formula,) for _ in range(CELLS)))
+    secs = timed_recalc(doc, repeats=5)
+    error = sheet.getCellRangeByName("H1").getError()
+    sheet.getCellRangeByName("H1:H%d" % CELLS).clearContents(1 | 2 | 4 | 16)
+    return secs * 1e6 / CELLS, error
+
+
+def ranges(office):
+    """Whole columns against the used rows, beside CHISQ.TEST."""
+    for groups in (4, 3000):
+        doc = office.new_sheet()
+        sheet = doc.Sheets.getByIndex(0)
+        fill_tally(sheet, groups)
+        end = groups + 1
+        cases = (
+            ("RATES.SAME.P, used rows", '=RATES.SAME.P(A2:A%d;C2:C%d;"pearson")' % (end, end)),
+            ("RATES.SAME.P, whole columns", '=RATES.SAME.P(A:A;C:C;"pearson")'),
+            ("CHISQ.TEST, used rows", "=CHISQ.TEST(A2:B%d;D2:E%d)" % (end, end)),
+            ("RATES.CHECK, labels on used rows", "=RATES.CHECK(A2:A%d;C2:C%d;;F2:F%d)" % (end, end, end)),
+            ("RATES.CHECK, labels as whole column", "=RATES.CHECK(A:A;C:C;;F:F)"),
+        )
+        for name, formula in cases:
+            us, err = per_cell_us(doc, sheet, formula)
+            print("%5d groups  %-38s %10.1f us per cell%s" % (groups, name, us, "  (Err:%d)" % err if err else ""))
+        doc.close(True)
+
+
 def main():
-    blocks = int(sys.argv[2]) if len(sys.argv) > 2 else 3000
     office = lo.Office(sys.argv[1]).install().start()
     try:
-        results = {}
-        for name, formula in (("RATES.SAME.P", '=RATES.SAME.P(A{a}:A{b};C{a}:C{b};"pearson")'),
-                              ("CHISQ.TEST", "=CHISQ.TEST(A{a}:B{b};D{a}:E{b})")):
-            doc = office.new_sheet()
-            sheet = doc.Sheets.getByIndex(0)
-            fill(sheet, blocks)
-            cells = [(formula.format(a=3 * k + 1, b=3 * k + 3),) for k in range(blocks)]
-            sheet.getCellRangeByName("F1:F%d" % blocks).setFormulaArray(tuple(cells))
-            results[name] = timed_recalc(doc)
-            doc.close(True)
-        for name, secs in results.items():
-            print("%-13s %6d cells: %.1f ms per recalculation, %.2f us per cell"
-                  % (name, blocks, secs * 1e3, secs * 1e6 / blocks))
-        print("ratio RATES.SAME.P / CHISQ.TEST: %.2f" % (results["RATES.SAME.P"] / results["CHISQ.TEST"]))
+        if len(sys.argv) > 2 and sys.argv[2] == "ranges":
+            ranges(office)
+        else:
+            blocks_against_chisq_test(office, int(sys.argv[2]) if len(sys.argv) > 2 else 3000)
     finally:
         office.stop()
     sys.stdout.flush()  # os._exit skips the flush of piped output
