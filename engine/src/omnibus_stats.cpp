@@ -24,6 +24,19 @@ table table_of(const counts& c) {
     return t;
 }
 
+std::vector<std::optional<double>> adjusted_residuals(const counts& c) {
+    const table t = table_of(c);
+    std::vector<std::optional<double>> out(c.range_size());
+    const double N = static_cast<double>(t.attempts), S = static_cast<double>(t.successes);
+    for (std::size_t g = 0; g < t.groups(); ++g) {
+        const double n = static_cast<double>(t.n[g]);
+        const double expected = n * S / N;
+        const double variance = expected * (1 - n / N) * (1 - S / N);
+        out[t.position[g] - 1] = t.all_alike() ? 0.0 : (static_cast<double>(t.x[g]) - expected) / std::sqrt(variance);
+    }
+    return out;
+}
+
 expected_summary expected_counts(const table& t) {
     expected_summary e;
     e.cells = 2 * t.groups();

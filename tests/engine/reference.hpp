@@ -3,6 +3,7 @@
 // rational-arithmetic enumerator. Each row names its source.
 #pragma once
 
+#include <cstdint>
 #include <fstream>
 #include <sstream>
 #include <stdexcept>

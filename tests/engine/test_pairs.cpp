@@ -1,0 +1,330 @@
+// Tests of the pairs family: one-rate intervals, difference intervals,
+// pairwise tests, multiplicity adjustment and adjusted residuals.
+//
+// Outside values:
+// - published worked examples, marked as checks.md marks them: [S] seen quoted
+//   with its citation, [M] from memory (Newcombe 1998a, Stat Med 17:857;
+//   Newcombe 1998b, Stat Med 17:873, Table II; Benjamini & Hochberg 1995,
+//   JRSS B 57:289, section 4);
+// - rows of tests/reference/omnibus.csv written by generate.py (statsmodels
+//   proportion_confint, confint_proportions_2indep, multipletests,
+//   Table.standardized_resids; scipy chi2_contingency, fisher_exact; an
+//   independent Miettinen-Nurminen root search), each naming its source.
+#include <gtest/gtest.h>
+
+#include <cmath>
+#include <map>
+#include <sstream>
+
+#include "reference.hpp"
+#include "tallyrates/adjust.hpp"
+#include "tallyrates/errors.hpp"
+#include "tallyrates/omnibus.hpp"
+#include "tallyrates/one_rate.hpp"
+#include "tallyrates/pairwise.hpp"
+
+using namespace tallyrates;
+using tallyrates::testing::reference_rows;
+
+namespace {
+
+group g(std::int64_t x, std::int64_t n, std::size_t position = 1) { return {position, x, n}; }
+
+counts tally(std::vector<std::int64_t> x, std::vector<std::int64_t> n) { return counts::from_values(x, n); }
+
+// Published to 4 decimals: within half a unit of the last place (plus rounding slack).
+void expect_4dp(double got, double published, const char* what) {
+    EXPECT_NEAR(got, published, 0.5e-4 + 1e-12) << what;
+}
+
+const std::map<std::string, one_rate::method> one_methods{{"wilson", one_rate::method::wilson},
+                                                          {"exact", one_rate::method::exact},
+                                                          {"jeffreys", one_rate::method::jeffreys},
+                                                          {"agresti_coull", one_rate::method::agresti_coull}};
+const std::map<std::string, pairwise::interval_method> diff_methods{
+    {"newcombe", pairwise::interval_method::newcombe},
+    {"score", pairwise::interval_method::score},
+    {"agresti_caffo", pairwise::interval_method::agresti_caffo},
+    {"wald", pairwise::interval_method::wald}};
+
+// "one_wilson_low" -> ("wilson", true)
+std::pair<std::string, bool> method_and_end(const std::string& quantity, std::size_t prefix) {
+    const bool low = quantity.ends_with("_low");
+    return {quantity.substr(prefix, quantity.size() - prefix - (low ? 4 : 5)), low};
+}
+
+}  // namespace
+
+TEST(OneRate, NewcombePublishedExamples) {
+    // Newcombe 1998a, illustrative intervals at 95 % (checks.md).
+    const auto w = one_rate::bounds(81, 263, 0.95, one_rate::method::wilson);  // [S]
+    expect_4dp(w.low, 0.2553, "81/263 Wilson low");
+    expect_4dp(w.high, 0.3662, "81/263 Wilson high");
+    const auto cp = one_rate::bounds(81, 263, 0.95, one_rate::method::exact);  // [M]
+    expect_4dp(cp.low, 0.2527, "81/263 CP low");
+    expect_4dp(cp.high, 0.3676, "81/263 CP high");
+    const auto w0 = one_rate::bounds(0, 20, 0.95, one_rate::method::wilson);  // [M]
+    EXPECT_EQ(w0.low, 0.0);
+    expect_4dp(w0.high, 0.1611, "0/20 Wilson high");
+    expect_4dp(one_rate::bounds(0, 20, 0.95, one_rate::method::exact).high, 0.1684, "0/20 CP high");  // [M]
+    const auto w1 = one_rate::bounds(1, 29, 0.95, one_rate::method::wilson);                        // [M]
+    expect_4dp(w1.low, 0.0061, "1/29 Wilson low");
+    expect_4dp(w1.high, 0.1718, "1/29 Wilson high");
+    const auto w15 = one_rate::bounds(15, 148, 0.95, one_rate::method::wilson);  // [M]
+    expect_4dp(w15.low, 0.0624, "15/148 Wilson low");
+    expect_4dp(w15.high, 0.1605, "15/148 Wilson high");
+}
+
+TEST(OneRate, ReferenceRows) {
+    std::size_t checked = 0;
+    for (const auto& r : reference_rows("one_")) {
+        const auto [name, low] = method_and_end(r.quantity, 4);
+        const auto b = one_rate::bounds(r.successes[0], r.attempts[0], 0.95, one_methods.at(name));
+        const double got = low ? b.low : b.high;
+        EXPECT_NEAR(got, r.value, 1e-12 + 1e-10 * std::fabs(r.value)) << r.name << " " << r.quantity << " " << r.source;
+        ++checked;
+    }
+    EXPECT_EQ(checked, 7u * 4 * 2);
+}
+
+TEST(OneRate, EndsAreExact) {
+    // Common practice, no source: no interval reaches below 0 % or above 100 %,
+    // and every method touches 0 at 0 of n and 1 at n of n except the
+    // Agresti-Coull form, which may stop short (Brown, Cai & DasGupta 2001).
+    for (const auto& [name, m] : one_methods) {
+        for (std::int64_t n : {1, 2, 12, 1000000}) {
+            const auto zero = one_rate::bounds(0, n, 0.95, m);
+            const auto all = one_rate::bounds(n, n, 0.95, m);
+            EXPECT_EQ(zero.low, 0.0) << name;
+            EXPECT_EQ(all.high, 1.0) << name;
+            EXPECT_LE(zero.high, 1.0);
+            EXPECT_GE(all.low, 0.0);
+        }
+    }
+}
+
+TEST(Difference, NewcombeTableTwoHybridScore) {
+    // Newcombe 1998b Table II, method 10, 95 % [S] (checks.md).
+    struct example {
+        std::int64_t x1, n1, x2, n2;
+        double low, high;
+    };
+    const example table_two[] = {{56, 70, 48, 80, 0.0524, 0.3339}, {9, 10, 3, 10, 0.1705, 0.8090},
+                                 {6, 7, 2, 7, 0.0582, 0.8062},     {5, 56, 0, 29, -0.0381, 0.1926},
+                                 {0, 10, 0, 20, -0.1611, 0.2775},  {0, 10, 0, 10, -0.2775, 0.2775}};
+    for (const auto& e : table_two) {
+        const auto ci = pairwise::difference_interval(g(e.x1, e.n1), g(e.x2, e.n2, 2), 0.95,
+                                                      pairwise::interval_method::newcombe);
+        expect_4dp(ci.low, e.low, "hybrid low");
+        expect_4dp(ci.high, e.high, "hybrid high");
+    }
+}
+
+TEST(Difference, NewcombeTableTwoOtherMethods) {
+    // Newcombe 1998b Table II, examples (a) 56/70 - 48/80 and (b) 9/10 - 3/10 [S].
+    using m = pairwise::interval_method;
+    auto check = [](group a, group b, m how, double low, double high, const char* what) {
+        const auto ci = pairwise::difference_interval(a, b, 0.95, how);
+        expect_4dp(ci.low, low, what);
+        expect_4dp(ci.high, high, what);
+    };
+    check(g(56, 70), g(48, 80, 2), m::wald, 0.0575, 0.3425, "(a) Wald");
+    check(g(56, 70), g(48, 80, 2), m::score, 0.0528, 0.3382, "(a) Miettinen-Nurminen");
+    check(g(56, 70), g(48, 80, 2), m::agresti_caffo, 0.0525, 0.3358, "(a) Agresti-Caffo");
+    check(g(9, 10), g(3, 10, 2), m::wald, 0.2605, 0.9395, "(b) Wald");
+    check(g(9, 10), g(3, 10, 2), m::score, 0.1700, 0.8406, "(b) Miettinen-Nurminen");
+    check(g(9, 10), g(3, 10, 2), m::agresti_caffo, 0.1600, 0.8400, "(b) Agresti-Caffo");
+}
+
+TEST(Difference, ReferenceRows) {
+    std::size_t checked = 0;
+    for (const auto& r : reference_rows("diff_")) {
+        const auto [name, low] = method_and_end(r.quantity, 5);
+        const auto ci = pairwise::difference_interval(g(r.successes[0], r.attempts[0]),
+                                                      g(r.successes[1], r.attempts[1], 2), 0.95, diff_methods.at(name));
+        // The score bounds are roots found by search on both sides: 1e-9.
+        const double tol = name == "score" ? 1e-9 : 1e-12 + 1e-10 * std::fabs(r.value);
+        EXPECT_NEAR(low ? ci.low : ci.high, r.value, tol) << r.name << " " << r.quantity << " " << r.source;
+        ++checked;
+    }
+    EXPECT_EQ(checked, 8u * 4 * 2);
+}
+
+TEST(Difference, IntervalsStayInsideMinusOneToOneAndHoldTheEstimate) {
+    // Common practice, no source: a difference of two rates lies in [-1, 1],
+    // and every interval here contains the observed difference.
+    const std::pair<std::int64_t, std::int64_t> shapes[] = {{0, 1}, {1, 1}, {0, 12}, {12, 12}, {3, 40000}, {7, 9}};
+    for (const auto& [name, m] : diff_methods)
+        for (const auto& [x1, n1] : shapes)
+            for (const auto& [x2, n2] : shapes) {
+                const auto ci = pairwise::difference_interval(g(x1, n1), g(x2, n2, 2), 0.95, m);
+                const double d = static_cast<double>(x1) / static_cast<double>(n1) -
+                                 static_cast<double>(x2) / static_cast<double>(n2);
+                EXPECT_GE(ci.low, -1.0) << name;
+                EXPECT_LE(ci.high, 1.0) << name;
+                EXPECT_LE(ci.low, d + 1e-12) << name << " " << x1 << "/" << n1 << " - " << x2 << "/" << n2;
+                EXPECT_GE(ci.high, d - 1e-12) << name << " " << x1 << "/" << n1 << " - " << x2 << "/" << n2;
+            }
+}
+
+TEST(PairTest, ReferenceRows) {
+    std::size_t checked = 0;
+    for (const auto& r : reference_rows("pair_")) {
+        const auto how = r.quantity == "pair_exact_p" ? pairwise::test_method::exact : pairwise::test_method::score;
+        const double p = pairwise::same_rate_p(g(r.successes[0], r.attempts[0]), g(r.successes[1], r.attempts[1], 2), how);
+        // The exact p at n = 10^6 sums long recurrences (ours and scipy's):
+        // agreement to 1e-9 relative is what both can promise there.
+        const double tol = how == pairwise::test_method::exact ? 1e-9 : 1e-10;
+        EXPECT_NEAR(p, r.value, tol * r.value + 1e-300) << r.name << " " << r.quantity << " " << r.source;
+        ++checked;
+    }
+    EXPECT_GE(checked, 14u);
+}
+
+TEST(PairTest, FisherTeaTasting) {
+    // Fisher's tea tasting [[3,1],[1,3]]: two-sided exact p 0.486 [S] (checks.md).
+    EXPECT_NEAR(pairwise::same_rate_p(g(3, 4), g(1, 4, 2), pairwise::test_method::exact), 0.486, 0.0005);
+}
+
+TEST(PairTest, ExactRefusesCountsBeyondItsBudget) {
+    // Bounded work whatever the counts (the exact 2 x 2 enumeration stores
+    // about 80 standard deviations of the conditional law).
+    EXPECT_THROW(pairwise::same_rate_p(g(40000000000, 100000000000), g(50000000000, 100000000000, 2),
+                                       pairwise::test_method::exact),
+                 budget_exceeded);
+    EXPECT_NO_THROW(pairwise::same_rate_p(g(40000000000, 100000000000), g(50000000000, 100000000000, 2),
+                                          pairwise::test_method::score));
+    // Just inside the budget (a standard deviation of about 11,000), far
+    // apart: the p-value underflows to 0, quickly.
+    EXPECT_EQ(pairwise::same_rate_p(g(400000000, 1000000000), g(500000000, 1000000000, 2),
+                                    pairwise::test_method::exact),
+              0.0);
+}
+
+TEST(Adjust, BenjaminiHochbergSectionFour) {
+    // Benjamini & Hochberg 1995 section 4: 15 p-values; at 0.05 BH rejects 4 [S],
+    // Bonferroni 3 [M].
+    const std::vector<double> p{0.0001, 0.0004, 0.0019, 0.0095, 0.0201, 0.0278, 0.0298, 0.0344,
+                                0.0459, 0.3240, 0.4262, 0.5719, 0.6528, 0.7590, 1.000};
+    auto rejected = [&](adjust::p_values how) {
+        int k = 0;
+        for (double v : adjust::adjusted(p, how)) k += v <= 0.05;
+        return k;
+    };
+    EXPECT_EQ(rejected(adjust::p_values::bh), 4);
+    EXPECT_EQ(rejected(adjust::p_values::bonferroni), 3);
+}
+
+TEST(Adjust, FamilyReferenceRows) {
+    // family_<test>_<adjust>_<all|against1>_<i>_<j>: statsmodels multipletests
+    // over scipy's pairwise p-values of a five-line tally.
+    const std::map<std::string, adjust::p_values> words{{"holm", adjust::p_values::holm},
+                                                        {"hochberg", adjust::p_values::hochberg},
+                                                        {"bh", adjust::p_values::bh},
+                                                        {"bonferroni", adjust::p_values::bonferroni},
+                                                        {"sidak", adjust::p_values::sidak}};
+    std::size_t checked = 0;
+    pairwise::p_cache cache(8);
+    for (const auto& r : reference_rows("family_")) {
+        // Split "family_score_holm_all_1_3".
+        std::vector<std::string> part;
+        std::stringstream in(r.quantity);
+        for (std::string s; std::getline(in, s, '_');) part.push_back(s);
+        ASSERT_EQ(part.size(), 6u) << r.quantity;
+        pairwise::test_options o;
+        o.how = part[1] == "exact" ? pairwise::test_method::exact : pairwise::test_method::score;
+        o.adjust = words.at(part[2]);
+        o.comparisons = part[3] == "all" ? pairwise::family::all : pairwise::family::against;
+        const double i = std::stod(part[4]), j = std::stod(part[5]);
+        const auto c = counts::from_values(r.successes, r.attempts);
+        // "against1" is every group against group 1: j = 1 is the reference.
+        const bool against = o.comparisons == pairwise::family::against;
+        const double first = against ? (j == 1 ? i : j) : i, second = against ? 1 : j;
+        const double p = pairwise::same_rate_p(c, first, second, o, &cache);
+        EXPECT_NEAR(p, r.value, 1e-10 * r.value + 1e-300) << r.quantity << " " << r.source;
+        // The same value without the cache, and (in the family of all pairs) for (j, i).
+        EXPECT_EQ(p, pairwise::same_rate_p(c, first, second, o)) << r.quantity;
+        if (!against) {
+            EXPECT_EQ(p, pairwise::same_rate_p(c, j, i, o)) << r.quantity;
+        }
+        ++checked;
+    }
+    EXPECT_EQ(checked, 2u * 5 * (10 + 4));
+}
+
+TEST(Adjust, MonotoneAndCapped) {
+    // Common practice, no source: an adjusted p is at least the raw one, at
+    // most 1, and keeps the order of the raw values.
+    const std::vector<double> p{0.3, 0.001, 0.04, 0.04, 0.9, 0.0002, 0.5};
+    for (auto how : {adjust::p_values::holm, adjust::p_values::hochberg, adjust::p_values::bh,
+                     adjust::p_values::bonferroni, adjust::p_values::sidak}) {
+        const auto a = adjust::adjusted(p, how);
+        for (std::size_t k = 0; k < p.size(); ++k) {
+            EXPECT_GE(a[k], p[k]);
+            EXPECT_LE(a[k], 1.0);
+            for (std::size_t l = 0; l < p.size(); ++l)
+                if (p[k] < p[l]) {
+                    EXPECT_LE(a[k], a[l]);
+                }
+        }
+    }
+}
+
+TEST(Adjust, SimultaneousLevels) {
+    // Bonferroni 1 - 0.05/m and Sidak 0.95^(1/m), the definitions (methods.md).
+    EXPECT_DOUBLE_EQ(adjust::per_comparison_level(0.95, 10, adjust::simultaneous::bonferroni), 0.995);
+    EXPECT_NEAR(adjust::per_comparison_level(0.95, 10, adjust::simultaneous::sidak), std::pow(0.95, 0.1), 1e-15);
+    EXPECT_EQ(adjust::per_comparison_level(0.95, 10, adjust::simultaneous::none), 0.95);
+    // Simultaneous intervals over the family are wider than single ones.
+    const auto c = tally({45, 171, 12, 30}, {50, 190, 12, 40});
+    pairwise::interval_options single, joint;
+    joint.adjust = adjust::simultaneous::bonferroni;
+    const auto a = pairwise::difference_interval(c, 1, 2, single);
+    const auto b = pairwise::difference_interval(c, 1, 2, joint);
+    EXPECT_LT(b.low, a.low);
+    EXPECT_GT(b.high, a.high);
+    // "against" holds G - 1 = 3 comparisons, "all" 6.
+    EXPECT_EQ(pairwise::family_size(c, pairwise::family::against), 3u);
+    EXPECT_EQ(pairwise::family_size(c, pairwise::family::all), 6u);
+}
+
+TEST(Pairs, BadPositionsAndLevelsAreRefused) {
+    const auto c = counts::from_entries(
+        std::vector{entry::number(4), entry::number(0), entry::blank(), entry::number(3)},
+        std::vector{entry::number(10), entry::number(0), entry::blank(), entry::number(8)});
+    const pairwise::interval_options o;
+    EXPECT_THROW(pairwise::difference_interval(c, 1, 1, o), invalid_input);  // i = j
+    EXPECT_THROW(pairwise::difference_interval(c, 1, 2, o), invalid_input);  // no attempts
+    EXPECT_THROW(pairwise::difference_interval(c, 1, 3, o), invalid_input);  // blank row
+    EXPECT_THROW(pairwise::difference_interval(c, 1, 5, o), invalid_input);  // outside
+    pairwise::interval_options bad_level;
+    bad_level.level = 1.0;
+    EXPECT_THROW(pairwise::difference_interval(c, 1, 4, bad_level), invalid_input);
+    EXPECT_THROW(one_rate::bounds(c, 2, 0.95, one_rate::method::wilson), invalid_input);
+    EXPECT_THROW(one_rate::bounds(c, 1, 0.0, one_rate::method::wilson), invalid_input);
+    EXPECT_THROW(pairwise::same_rate_p(c, 4, 4, pairwise::test_options{}), invalid_input);
+}
+
+TEST(Residuals, ReferenceRows) {
+    std::size_t checked = 0;
+    for (const auto& r : reference_rows("resid_")) {
+        const auto res = omnibus::adjusted_residuals(counts::from_values(r.successes, r.attempts));
+        const auto pos = std::stoul(r.quantity.substr(6));
+        ASSERT_TRUE(res[pos - 1].has_value());
+        EXPECT_NEAR(*res[pos - 1], r.value, 1e-12 + 1e-10 * std::fabs(r.value)) << r.name << " " << r.quantity;
+        ++checked;
+    }
+    EXPECT_EQ(checked, 7u);
+}
+
+TEST(Residuals, BlankRowsAndEmptyGroupsHaveNone) {
+    const auto c = counts::from_entries(
+        std::vector{entry::number(4), entry::blank(), entry::number(0), entry::number(3)},
+        std::vector{entry::number(10), entry::blank(), entry::number(0), entry::number(8)});
+    const auto res = omnibus::adjusted_residuals(c);
+    ASSERT_EQ(res.size(), 4u);
+    EXPECT_TRUE(res[0] && res[3]);
+    EXPECT_FALSE(res[1] || res[2]);
+    // Two groups: the residuals are opposite (arithmetic of the definition).
+    EXPECT_NEAR(*res[0], -*res[3], 1e-12);
+}
