@@ -15,6 +15,7 @@
 
 #include "convert.hpp"
 #include "tallyrates/omnibus.hpp"
+#include "tallyrates/pairwise.hpp"
 
 namespace tallyrates::uno {
 
@@ -30,7 +31,7 @@ class rates final : public cppu::WeakImplHelper4<org::tallyrates::sheet::XRates,
 public:
     // ---- omnibus family (omnibus/functions.cpp) ----
     OUString SAL_CALL check(const caller& document, const cells& successes, const cells& attempts, const Any& method,
-                            const Any& labels) override;
+                           const Any& labels, const Any& i, const Any& j) override;
     double SAL_CALL sameP(const caller& document, const cells& successes, const cells& attempts, const Any& method,
                           const Any& draws, const Any& seed) override;
     double SAL_CALL sameStat(const caller& document, const cells& successes, const cells& attempts,
@@ -39,12 +40,25 @@ public:
                               const Any& draws, const Any& seed, const Any& labels) override;
     double SAL_CALL trendP(const caller& document, const cells& successes, const cells& attempts, const Any& scores,
                            const Any& variance) override;
+    array SAL_CALL sameResid(const caller& document, const cells& successes, const cells& attempts) override;
     double SAL_CALL trendZ(const caller& document, const cells& successes, const cells& attempts, const Any& scores,
                            const Any& variance) override;
 
     // ---- pairs family (pairs/functions.cpp) ----
     double SAL_CALL diff(const caller& document, const cells& successes, const cells& attempts, double i,
                          double j) override;
+    double SAL_CALL diffLow(const caller& document, const cells& successes, const cells& attempts, double i, double j,
+                            const Any& level, const Any& method, const Any& adjust, const Any& family) override;
+    double SAL_CALL diffHigh(const caller& document, const cells& successes, const cells& attempts, double i, double j,
+                             const Any& level, const Any& method, const Any& adjust, const Any& family) override;
+    double SAL_CALL pairP(const caller& document, const cells& successes, const cells& attempts, double i, double j,
+                          const Any& adjust, const Any& method, const Any& family) override;
+    array SAL_CALL pairs(const caller& document, const cells& successes, const cells& attempts, const Any& level,
+                         const Any& method, const Any& adjust, const Any& labels) override;
+    double SAL_CALL oneLow(const caller& document, const cells& successes, const cells& attempts, double i,
+                           const Any& level, const Any& method) override;
+    double SAL_CALL oneHigh(const caller& document, const cells& successes, const cells& attempts, double i,
+                            const Any& level, const Any& method) override;
 
     // ---- XAddIn, XServiceName, XServiceInfo (addin.cpp) ----
     OUString SAL_CALL getProgrammaticFuntionName(const OUString& display) override;
@@ -66,6 +80,7 @@ private:
     css::lang::Locale locale_;
     // Analyses already made, keyed by their exact inputs (thread-safe).
     omnibus::result_cache cache_{64};
+    pairwise::p_cache pairs_cache_{64};
 };
 
 }  // namespace tallyrates::uno

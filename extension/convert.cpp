@@ -176,7 +176,8 @@ count_lines lines_of(const caller& document, const cells& successes, const cells
     // Both read as far as either is filled, so that a row filled in one range
     // only is seen (and refused) like any other.
     const std::size_t count = std::max(filled_length(successes, "successes"), filled_length(attempts, "attempts"));
-    return {line_of(document, successes, "successes", count), line_of(document, attempts, "attempts", count)};
+    return {line_of(document, successes, "successes", count), line_of(document, attempts, "attempts", count),
+            placement_of(successes, "successes").down};
 }
 
 entry cell_entry(const Any& cell) {
@@ -249,9 +250,25 @@ std::vector<std::string> optional_texts(const Any& a, const char* argument) {
     return out;
 }
 
-counts counts_of(const caller& document, const cells& successes, const cells& attempts) {
+counts counts_of(const caller& document, const cells& successes, const cells& attempts,
+                 std::span<const std::string> labels) {
     const auto lines = lines_of(document, successes, attempts);
-    return counts::from_entries(lines.successes, lines.attempts);
+    return counts::from_entries(lines.successes, lines.attempts, labels);
+}
+
+range along_the_counts(const std::vector<std::optional<double>>& values, bool down) {
+    auto cell = [&](std::size_t k) { return values[k] ? Any(uno::finite(*values[k])) : Any(rtl::OUString()); };
+    if (!down) {
+        css::uno::Sequence<Any> row(static_cast<sal_Int32>(values.size()));
+        for (std::size_t k = 0; k < values.size(); ++k) row.getArray()[k] = cell(k);
+        return range(&row, 1);
+    }
+    range out(static_cast<sal_Int32>(values.size()));
+    for (std::size_t k = 0; k < values.size(); ++k) {
+        const Any one = cell(k);
+        out.getArray()[k] = css::uno::Sequence<Any>(&one, 1);
+    }
+    return out;
 }
 
 range to_array(const std::vector<report_row>& rows) {

@@ -18,6 +18,7 @@
 #include <com/sun/star/uno/Reference.hxx>
 #include <com/sun/star/uno/Sequence.hxx>
 #include <optional>
+#include <span>
 #include <string>
 #include <vector>
 
@@ -61,11 +62,18 @@ std::vector<std::string> optional_texts(const css::uno::Any& a, const char* argu
 // The two count ranges of a call, each read as far as either is filled.
 struct count_lines {
     cell_line successes, attempts;
+    bool down = true;  // one group per row (a column of counts), else per column
 };
 count_lines lines_of(const caller& document, const cells& successes, const cells& attempts);
 
 // The two count ranges of a call, validated (engine rules, counts.hpp).
-counts counts_of(const caller& document, const cells& successes, const cells& attempts);
+// `labels`: one per position, or none.
+counts counts_of(const caller& document, const cells& successes, const cells& attempts,
+                 std::span<const std::string> labels = {});
+
+// One value per position (blank where there is none), laid out like the
+// count ranges: a column for counts in a column, a row for counts in a row.
+range along_the_counts(const std::vector<std::optional<double>>& values, bool down);
 
 // Label/value rows (RATES.SAME.REPORT) as a two-column array result.
 range to_array(const std::vector<report_row>& rows);

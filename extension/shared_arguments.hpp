@@ -4,6 +4,13 @@
 
 #include "catalog.hpp"
 
+// Ends every description of a function that can fail with Err:502.
+#define TALLYRATES_WHY_502 " If the cell shows Err:502, RATES.CHECK on the same ranges says why."
+// The same for functions that name groups by position (i, j).
+#define TALLYRATES_WHY_502_POSITIONS                                                                      \
+    " If the cell shows Err:502, RATES.CHECK on the same ranges with the same i and j says why (a word that " \
+    "is not one of those listed here is the other cause)."
+
 namespace tallyrates::catalog::shared {
 
 inline constexpr argument successes{
@@ -21,6 +28,9 @@ inline constexpr argument attempts{
 inline constexpr argument i{"i", "Position of the first group in the range (1 = first row of the range, blank rows counted).",
                             ""};
 inline constexpr argument j{"j", "Position of the second group, counted the same way.", ""};
+inline constexpr argument level{
+    "level", "Confidence level between 0 and 1: 0.95 means the interval covers the true value 95 times in 100.",
+    "0.95"};
 inline constexpr argument labels{
     "labels",
     "Cells with the group names (oven, line, lot), the same size as the count ranges; messages then name the "

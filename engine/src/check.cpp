@@ -6,6 +6,7 @@
 
 #include "tallyrates/errors.hpp"
 #include "tallyrates/omnibus.hpp"
+#include "tallyrates/pairwise.hpp"
 #include "tallyrates/text.hpp"
 
 namespace tallyrates {
@@ -14,12 +15,24 @@ std::string smallest_expected_place(const counts& c, const omnibus::expected_sum
     return std::string(e.smallest_is_failures ? "failures" : "successes") + " at " + c.name_of(e.smallest_position);
 }
 
+namespace {
+
+// The rules the pairs and one-rate functions apply to i and j (pairwise.cpp).
+void check_positions(const counts& c, const positions_asked& asked) {
+    const group* a = asked.i ? &pairwise::group_with_attempts(c, *asked.i, "i") : nullptr;
+    const group* b = asked.j ? &pairwise::group_with_attempts(c, *asked.j, "j") : nullptr;
+    if (a && b) pairwise::distinct(*a, *b);
+}
+
+}  // namespace
+
 std::string check_text(const cell_line& successes, const cell_line& attempts,
                        std::span<const std::string> labels, const omnibus::options* asked,
-                       omnibus::result_cache* cache) {
+                       omnibus::result_cache* cache, const positions_asked& positions) {
     counts c;
     try {
         c = counts::from_entries(successes, attempts, labels);
+        check_positions(c, positions);
     } catch (const invalid_input& e) {
         return std::string("problem: ") + e.what();
     }

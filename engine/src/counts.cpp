@@ -118,6 +118,8 @@ std::string counts::name_of(std::size_t position) const {
     return "position " + std::to_string(position) + (label.empty() ? "" : ", " + label);
 }
 
+std::string counts::label_of(std::size_t position) const { return label_at(position, labels_); }
+
 std::vector<group> counts::with_attempts() const {
     std::vector<group> out;
     for (const auto& g : groups_)

@@ -24,6 +24,9 @@ table table_of(const counts& c) {
     return t;
 }
 
+// Longer ranges are handed back only down to their last group.
+constexpr std::size_t residual_rows_whole = 65536;
+
 std::vector<std::optional<double>> adjusted_residuals(const counts& c) {
     const table t = table_of(c);
     std::vector<std::optional<double>> out(c.range_size());
@@ -34,6 +37,7 @@ std::vector<std::optional<double>> adjusted_residuals(const counts& c) {
         const double variance = expected * (1 - n / N) * (1 - S / N);
         out[t.position[g] - 1] = t.all_alike() ? 0.0 : (static_cast<double>(t.x[g]) - expected) / std::sqrt(variance);
     }
+    if (out.size() > residual_rows_whole) out.resize(t.position.back());
     return out;
 }
 

@@ -140,14 +140,14 @@ std::vector<std::pair<const group*, const group*>> pairs_of(const std::vector<gr
     return out;
 }
 
+}  // namespace
+
 void distinct(const group& a, const group& b) {
     if (a.position == b.position)
         throw invalid_input("The arguments i and j both name position " + std::to_string(a.position) +
                                 "; compare two different groups.",
                             a.position);
 }
-
-}  // namespace
 
 const group& group_with_attempts(const counts& c, double pos, const char* argument) {
     const group& g = c.at_position(pos, argument);
@@ -227,6 +227,24 @@ double same_rate_p(const counts& c, double i, double j, const test_options& o, p
         family_p.push_back(raw[k]);
     }
     return adjust::adjusted(family_p, o.adjust)[at];
+}
+
+std::vector<pair_row> pairs_table(const counts& c, const table_options& o, p_cache* cache) {
+    const auto groups = c.with_attempts();
+    if (groups.size() < 2)
+        throw invalid_input("At least two groups with attempts are needed to compare pairs; " +
+                            std::to_string(groups.size()) + (groups.size() == 1 ? " has" : " have") + " any.");
+    const interval_options io{o.level, o.how, o.intervals, family::all};
+    const test_options to{test_method::score, adjust::p_values::none, family::all};
+    test_options adjusted = to;
+    adjusted.adjust = o.p;
+    std::vector<pair_row> rows;
+    for (const auto& [a, b] : pairs_of(groups)) {
+        const auto i = static_cast<double>(a->position), j = static_cast<double>(b->position);
+        rows.push_back({a->position, b->position, difference(c, i, j), difference_interval(c, i, j, io),
+                        same_rate_p(c, i, j, to, cache), same_rate_p(c, i, j, adjusted, cache)});
+    }
+    return rows;
 }
 
 }  // namespace tallyrates::pairwise

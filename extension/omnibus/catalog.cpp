@@ -14,8 +14,7 @@ namespace {
 using shared::attempts;
 using shared::successes;
 
-// Ends every description of a function that can fail with Err:502.
-#define WHY_502 " If the cell shows Err:502, RATES.CHECK on the same ranges says why."
+#define WHY_502 TALLYRATES_WHY_502
 
 constexpr argument method{
     "method",
@@ -40,8 +39,14 @@ constexpr std::array check_args{
              "A method word of RATES.SAME.P to try as well: the answer then says whether that route fits and what "
              "it would do.",
              "\"auto\""},
-    shared::labels};
+    shared::labels,
+    argument{"i",
+             "The position a pairs or one-rate function names as i (RATES.DIFF.LOW, RATES.ONE.LOW, ...): the answer "
+             "then says whether it is a group with attempts.",
+             "none"},
+    argument{"j", "The position named as j, checked the same way (and that it differs from i).", "none"}};
 constexpr std::array same_p_args{successes, attempts, method, draws, seed};
+constexpr std::array resid_args{successes, attempts};
 constexpr std::array report_args{successes, attempts, method, draws, seed, shared::labels};
 constexpr std::array same_stat_args{
     successes, attempts,
@@ -60,7 +65,8 @@ constexpr std::array trend_args{
 constexpr std::array table{
     function{"check", "RATES.CHECK",
              "Checks the two count ranges: \"ok\" with the number of groups, total attempts, smallest expected count "
-             "and the route the automatic test takes, or the first problem with its row.",
+             "and the route the automatic test takes, or the first problem with its row. Give i and j to check the "
+             "positions a pairs function names as well.",
              check_args},
     function{"sameP", "RATES.SAME.P",
              "p-value for \"all groups share one success rate\": a small value (below 0.05, say) means the rates "
@@ -75,6 +81,12 @@ constexpr std::array table{
              "freedom, p-value, route used and why, expected counts, Monte Carlo error or exact bounds. Enter as an "
              "array formula over 11 rows and 2 columns; problems with the input are shown in it.",
              report_args, true},
+    function{"sameResid", "RATES.SAME.RESID",
+             "One value per row of the tally: how far the group's successes lie from what one shared rate "
+             "predicts, in standard units (adjusted residual, Haberman 1973). Beyond about +2 or -2 the group "
+             "stands out; negative means fewer successes than expected. Enter as an array formula beside the "
+             "tally, as many cells as the count ranges; blank rows stay blank." WHY_502,
+             resid_args, true},
     function{"trendP", "RATES.TREND.P",
              "p-value of the Cochran-Armitage test for a rate that rises or falls steadily across the groups in "
              "order (two-sided)." WHY_502,

@@ -56,11 +56,12 @@ trend::result trend_of(const caller& document, const cells& successes, const cel
 }  // namespace
 
 OUString rates::check(const caller& document, const cells& successes, const cells& attempts, const Any& method,
-                      const Any& labels) {
+                      const Any& labels, const Any& i, const Any& j) {
     return guarded([&] {
         const auto in = read_inputs(document, successes, attempts, method, Any(), Any(), labels);
         if (!in.problem.empty()) return ou("problem: " + in.problem);
-        return ou(check_text(in.counts.successes, in.counts.attempts, in.labels, &in.options, &cache_));
+        const positions_asked positions{convert::number(i, "i"), convert::number(j, "j")};
+        return ou(check_text(in.counts.successes, in.counts.attempts, in.labels, &in.options, &cache_, positions));
     });
 }
 
@@ -87,6 +88,14 @@ array rates::sameReport(const caller& document, const cells& successes, const ce
         if (!in.problem.empty()) return convert::to_array(problem_report(in.problem));
         return convert::to_array(
             same_rates_report(in.counts.successes, in.counts.attempts, in.labels, in.options, &cache_));
+    });
+}
+
+array rates::sameResid(const caller& document, const cells& successes, const cells& attempts) {
+    return guarded([&] {
+        const auto lines = convert::lines_of(document, successes, attempts);
+        const auto c = counts::from_entries(lines.successes, lines.attempts);
+        return convert::along_the_counts(omnibus::adjusted_residuals(c), lines.down);
     });
 }
 

@@ -1,15 +1,154 @@
 // pairs/functions.cpp - the worksheet methods of the pairs family:
-// comparisons of two groups. Each converts its arguments, calls the engine
-// and returns, inside `guarded`.
+// comparisons of two groups, the table of every pair, and intervals for one
+// group. Each converts its arguments, calls the engine and returns, inside
+// `guarded`.
 #include "../addin.hpp"
 #include "../guard.hpp"
+#include "keywords.hpp"
+#include "tallyrates/errors.hpp"
+#include "tallyrates/one_rate.hpp"
 #include "tallyrates/pairwise.hpp"
+#include "tallyrates/text.hpp"
 
 namespace tallyrates::uno {
 
+namespace {
+
+double level_of(const Any& level) {
+    return arguments::level(convert::number(level, "level").value_or(0.95), "level");
+}
+
+pairwise::interval_options interval_options(const Any& level, const Any& method, const Any& adjust,
+                                            const Any& family) {
+    pairwise::interval_options o;
+    o.level = level_of(level);
+    o.how = arguments::keyword_or(convert::word(method, "method"), o.how, keywords::difference_method, "method");
+    o.adjust = arguments::keyword_or(convert::word(adjust, "adjust"), o.adjust, keywords::simultaneous, "adjust");
+    o.comparisons = arguments::keyword_or(convert::word(family, "family"), o.comparisons, keywords::family, "family");
+    return o;
+}
+
+one_rate::method one_rate_method(const Any& method) {
+    return arguments::keyword_or(convert::word(method, "method"), one_rate::method::wilson, keywords::one_rate_method,
+                                 "method");
+}
+
+// "95 % each" or "95 % jointly, Bonferroni": what the interval columns hold.
+std::string level_words(double level, adjust::simultaneous joint) {
+    const std::string pct = format_short(level * 100) + " %";
+    if (joint == adjust::simultaneous::none) return pct + " each";
+    return pct + " jointly, " + (joint == adjust::simultaneous::bonferroni ? "Bonferroni" : "Sidak");
+}
+
+// Header, one row per pair, then blank rows up to one per pair of rows of
+// the range (at most 2,000 rows), so that a selection made for the range
+// shows blanks rather than #N/A below the table.
+array pairs_array(const counts& c, const std::vector<pairwise::pair_row>& rows, const pairwise::table_options& o,
+                  std::string_view adjust_word) {
+    const std::size_t r = c.range_size();
+    const std::size_t height = std::max(rows.size() + 1, std::min<std::size_t>(r * (r - 1) / 2 + 1, 2000));
+    array out(static_cast<sal_Int32>(height));
+    auto name = [&](std::size_t pos) {
+        const std::string label = c.label_of(pos);
+        return label.empty() ? Any(static_cast<double>(pos)) : Any(ou(label));
+    };
+    const std::string pairs_text = count_of(rows.size(), "pair", "pairs");
+    const Any header[7] = {Any(ou("group i (" + pairs_text + ", " + std::to_string(rows.size() + 1) + " rows)")),
+                           Any(ou("group j")), Any(ou("difference i - j")),
+                           Any(ou("low, " + level_words(o.level, o.intervals))),
+                           Any(ou("high, " + level_words(o.level, o.intervals))), Any(ou("p, score test")),
+                           Any(ou("p adjusted, " + std::string(adjust_word)))};
+    out.getArray()[0] = css::uno::Sequence<Any>(header, 7);
+    for (std::size_t k = 0; k < height - 1; ++k) {
+        css::uno::Sequence<Any> line(7);
+        if (k < rows.size()) {
+            const auto& p = rows[k];
+            const Any cells[7] = {name(p.i), name(p.j), Any(finite(p.difference)), Any(finite(p.bounds.low)),
+                                  Any(finite(p.bounds.high)), Any(finite(p.p)), Any(finite(p.p_adjusted))};
+            line = css::uno::Sequence<Any>(cells, 7);
+        } else {
+            for (sal_Int32 col = 0; col < 7; ++col) line.getArray()[col] <<= OUString();
+        }
+        out.getArray()[static_cast<sal_Int32>(k + 1)] = line;
+    }
+    return out;
+}
+
+// A problem with the input, in the first cell of the table.
+array problem_array(const std::string& problem) {
+    array out(1);
+    const Any cell(ou("problem: " + problem));
+    out.getArray()[0] = css::uno::Sequence<Any>(&cell, 1);
+    return out;
+}
+
+}  // namespace
+
 double rates::diff(const caller& document, const cells& successes, const cells& attempts, double i, double j) {
-    return guarded(
-        [&] { return finite(pairwise::difference(convert::counts_of(document, successes, attempts), i, j)); });
+    return guarded([&] { return finite(pairwise::difference(convert::counts_of(document, successes, attempts), i, j)); });
+}
+
+double rates::diffLow(const caller& document, const cells& successes, const cells& attempts, double i, double j,
+                      const Any& level, const Any& method, const Any& adjust, const Any& family) {
+    return guarded([&] {
+        const auto o = interval_options(level, method, adjust, family);
+        return finite(pairwise::difference_interval(convert::counts_of(document, successes, attempts), i, j, o).low);
+    });
+}
+
+double rates::diffHigh(const caller& document, const cells& successes, const cells& attempts, double i, double j,
+                       const Any& level, const Any& method, const Any& adjust, const Any& family) {
+    return guarded([&] {
+        const auto o = interval_options(level, method, adjust, family);
+        return finite(pairwise::difference_interval(convert::counts_of(document, successes, attempts), i, j, o).high);
+    });
+}
+
+double rates::pairP(const caller& document, const cells& successes, const cells& attempts, double i, double j,
+                    const Any& adjust, const Any& method, const Any& family) {
+    return guarded([&] {
+        pairwise::test_options o;
+        o.adjust = arguments::keyword_or(convert::word(adjust, "adjust"), o.adjust, keywords::p_adjust, "adjust");
+        o.how = arguments::keyword_or(convert::word(method, "method"), o.how, keywords::pair_test, "method");
+        o.comparisons = arguments::keyword_or(convert::word(family, "family"), o.comparisons, keywords::family, "family");
+        return finite(pairwise::same_rate_p(convert::counts_of(document, successes, attempts), i, j, o, &pairs_cache_));
+    });
+}
+
+array rates::pairs(const caller& document, const cells& successes, const cells& attempts, const Any& level,
+                   const Any& method, const Any& adjust, const Any& labels) {
+    return guarded([&] {
+        try {
+            pairwise::table_options o;
+            o.level = level_of(level);
+            o.how = arguments::keyword_or(convert::word(method, "method"), o.how, keywords::difference_method, "method");
+            const auto both = arguments::keyword_or(convert::word(adjust, "adjust"), keywords::pairs_adjust[0].value,
+                                                    keywords::pairs_adjust, "adjust");
+            std::tie(o.intervals, o.p) = both;
+            const auto names = convert::optional_texts(labels, "labels");
+            const auto c = convert::counts_of(document, successes, attempts, names);
+            return pairs_array(c, pairwise::pairs_table(c, o, &pairs_cache_), o,
+                               arguments::text_of(both, keywords::pairs_adjust));
+        } catch (const invalid_input& e) {
+            return problem_array(e.what());
+        }
+    });
+}
+
+double rates::oneLow(const caller& document, const cells& successes, const cells& attempts, double i,
+                     const Any& level, const Any& method) {
+    return guarded([&] {
+        const auto c = convert::counts_of(document, successes, attempts);
+        return finite(one_rate::bounds(c, i, level_of(level), one_rate_method(method)).low);
+    });
+}
+
+double rates::oneHigh(const caller& document, const cells& successes, const cells& attempts, double i,
+                      const Any& level, const Any& method) {
+    return guarded([&] {
+        const auto c = convert::counts_of(document, successes, attempts);
+        return finite(one_rate::bounds(c, i, level_of(level), one_rate_method(method)).high);
+    });
 }
 
 }  // namespace tallyrates::uno

@@ -328,3 +328,38 @@ TEST(Residuals, BlankRowsAndEmptyGroupsHaveNone) {
     // Two groups: the residuals are opposite (arithmetic of the definition).
     EXPECT_NEAR(*res[0], -*res[3], 1e-12);
 }
+
+TEST(Pairs, TableAgreesWithTheSingleCellsToTheLastBit) {
+    // The rule: a RATES.PAIRS row and the single-cell functions give
+    // the same numbers. Blank rows and a group without attempts are left out.
+    const auto c = counts::from_entries(
+        std::vector{entry::number(45), entry::blank(), entry::number(171), entry::number(0), entry::number(12),
+                    entry::number(30)},
+        std::vector{entry::number(50), entry::blank(), entry::number(190), entry::number(0), entry::number(12),
+                    entry::number(40)});
+    pairwise::table_options o;
+    o.how = pairwise::interval_method::score;
+    o.intervals = adjust::simultaneous::sidak;
+    o.p = adjust::p_values::hochberg;
+    pairwise::p_cache cache(4);
+    const auto rows = pairwise::pairs_table(c, o, &cache);
+    ASSERT_EQ(rows.size(), 6u);  // 4 groups with attempts
+    EXPECT_EQ(rows[0].i, 1u);
+    EXPECT_EQ(rows[0].j, 3u);
+    EXPECT_EQ(rows[5].i, 5u);
+    EXPECT_EQ(rows[5].j, 6u);
+    for (const auto& r : rows) {
+        const auto i = static_cast<double>(r.i), j = static_cast<double>(r.j);
+        const auto ci = pairwise::difference_interval(
+            c, i, j, pairwise::interval_options{o.level, o.how, o.intervals, pairwise::family::all});
+        EXPECT_EQ(r.bounds.low, ci.low);
+        EXPECT_EQ(r.bounds.high, ci.high);
+        EXPECT_EQ(r.difference, pairwise::difference(c, i, j));
+        EXPECT_EQ(r.p, pairwise::same_rate_p(c, i, j, pairwise::test_options{}));
+        pairwise::test_options t;
+        t.adjust = o.p;
+        EXPECT_EQ(r.p_adjusted, pairwise::same_rate_p(c, i, j, t));
+        EXPECT_GE(r.p_adjusted, r.p);
+    }
+    EXPECT_THROW(pairwise::pairs_table(tally({3}, {9}), o), invalid_input);
+}

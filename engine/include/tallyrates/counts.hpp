@@ -81,6 +81,8 @@ public:
 
     // How messages name a group: "position 4" or "position 4, Pilot oven".
     std::string name_of(std::size_t position) const;
+    // The group's label, empty when none was given.
+    std::string label_of(std::size_t position) const;
 
     bool operator==(const counts&) const = default;
 

@@ -56,6 +56,9 @@ struct test_options {
 // statement about a group without data is refused).
 const group& group_with_attempts(const counts& c, double pos, const char* argument);
 
+// invalid_input when a and b are the same group (i = j).
+void distinct(const group& a, const group& b);
+
 // Observed rate_i - rate_j.
 double difference(const counts& c, double i, double j);
 
@@ -76,5 +79,23 @@ using p_cache = lru_cache<std::pair<std::vector<std::pair<std::int64_t, std::int
 std::vector<double> all_pairs_p(const counts& c, test_method how, p_cache* cache = nullptr);
 // p for rate_i = rate_j, adjusted over the family when asked.
 double same_rate_p(const counts& c, double i, double j, const test_options& o, p_cache* cache = nullptr);
+
+// ---- RATES.PAIRS: every pair at once ----
+struct table_options {
+    double level = 0.95;
+    interval_method how = interval_method::newcombe;
+    adjust::simultaneous intervals = adjust::simultaneous::none;  // over all pairs
+    adjust::p_values p = adjust::p_values::holm;                   // score-test p, over all pairs
+};
+struct pair_row {
+    std::size_t i = 0, j = 0;  // positions, i < j
+    double difference = 0;     // rate_i - rate_j
+    interval bounds;
+    double p = 1, p_adjusted = 1;
+};
+// One row per pair of groups with attempts, in the order of all_pairs_p;
+// every number is what the single-cell functions give for that pair (the
+// same calls), so a table and the cells beside it agree to the last bit.
+std::vector<pair_row> pairs_table(const counts& c, const table_options& o, p_cache* cache = nullptr);
 
 }  // namespace tallyrates::pairwise
