@@ -110,15 +110,22 @@ sal_Int32 format_key(const Reference<css::beans::XPropertySet>& cells_with_one_f
 
 void numbers_to_booleans(std::vector<entry>& out, std::size_t from, std::size_t to) {
     for (std::size_t k = from; k < to; ++k)
-        if (out[k].what == entry::kind::number) out[k] = entry::boolean();
+        if (out[k].what == entry::kind::number && (out[k].value == 0 || out[k].value == 1)) out[k] = entry::boolean();
 }
 
 // Calc keeps TRUE/FALSE as 1/0 with a logical number format (also on cells
-// whose formula gives a logical result): numbers in such cells become
-// booleans, which the count rules refuse. A range in one format (the usual
+// whose formula gives a logical result): a 0 or 1 in such a cell becomes a
+// boolean, which the count rules refuse. (Another number in a cell formatted
+// as logical also shows TRUE; it is read as the number it is.) A range in one format (the usual
 // tally) is answered by one question; otherwise per run of equal formatting,
 // so a long range costs a few runs, never a call per cell.
 void mark_booleans(const caller& document, const cells& part, const placement& p, std::vector<entry>& out) {
+    // TRUE and FALSE are 1 and 0: without such a number there is nothing to
+    // ask (the usual tally), which saves the format questions, about 5 us.
+    if (std::none_of(out.begin(), out.end(), [](const entry& e) {
+            return e.what == entry::kind::number && (e.value == 0 || e.value == 1);
+        }))
+        return;
     logical_formats logical(document);
     if (!logical.known()) return;
     const Reference<css::beans::XPropertyState> state(part, UNO_QUERY_THROW);
@@ -141,10 +148,9 @@ void mark_booleans(const caller& document, const cells& part, const placement& p
 // only down to their last filled cell, which one query finds.
 constexpr std::size_t read_whole_up_to = 4096;
 
-}  // namespace
-
-std::size_t filled_length(const cells& range, const char* argument) {
-    const placement p = placement_of(range, argument);
+// How far a count range is filled: the cells up to and including its last
+// filled one.
+std::size_t filled_length(const cells& range, const placement& p) {
     if (p.length <= read_whole_up_to) return p.length;
     using namespace css::sheet::CellFlags;
     const auto used = Reference<css::sheet::XCellRangesQuery>(range, UNO_QUERY_THROW)
@@ -154,8 +160,8 @@ std::size_t filled_length(const cells& range, const char* argument) {
     return end;
 }
 
-cell_line line_of(const caller& document, const cells& range, const char* argument, std::size_t count) {
-    const placement p = placement_of(range, argument);
+// The first `count` cells of a range (fewer if it is shorter).
+cell_line line_of(const caller& document, const cells& range, const placement& p, std::size_t count) {
     count = std::min(count, p.length);
     if (count == 0) return cell_line({}, p.length);
     const auto last = static_cast<sal_Int32>(count - 1);
@@ -172,12 +178,14 @@ cell_line line_of(const caller& document, const cells& range, const char* argume
     return cell_line(std::move(out), p.length);
 }
 
+}  // namespace
+
 count_lines lines_of(const caller& document, const cells& successes, const cells& attempts) {
+    const placement ps = placement_of(successes, "successes"), pn = placement_of(attempts, "attempts");
     // Both read as far as either is filled, so that a row filled in one range
     // only is seen (and refused) like any other.
-    const std::size_t count = std::max(filled_length(successes, "successes"), filled_length(attempts, "attempts"));
-    return {line_of(document, successes, "successes", count), line_of(document, attempts, "attempts", count),
-            placement_of(successes, "successes").down};
+    const std::size_t count = std::max(filled_length(successes, ps), filled_length(attempts, pn));
+    return {line_of(document, successes, ps, count), line_of(document, attempts, pn, count), ps.down};
 }
 
 entry cell_entry(const Any& cell) {

@@ -31,16 +31,6 @@ using range = css::uno::Sequence<css::uno::Sequence<css::uno::Any>>;
 using cells = css::uno::Reference<css::table::XCellRange>;
 using caller = css::uno::Reference<css::beans::XPropertySet>;
 
-// A count range as a line of cells: its first `count` cells are read (fewer
-// if the range is shorter), the rest count as blank. `document` may be empty
-// (a call from outside Calc): booleans then read as numbers.
-cell_line line_of(const caller& document, const cells& range, const char* argument, std::size_t count);
-
-// How far a count range is filled: the cells up to and including its last
-// filled one (ranges of up to a few thousand cells count as filled to the end:
-// reading them is cheaper than asking).
-std::size_t filled_length(const cells& range, const char* argument);
-
 // One column or one row of cells, in order (a block of several rows and
 // columns is refused by arguments::not_one_line).
 std::vector<entry> range_entries(const range& values, const char* argument);
@@ -59,7 +49,11 @@ std::vector<entry> optional_range(const css::uno::Any& a, const char* argument);
 // they would be typed, blank cells empty; nothing when omitted.
 std::vector<std::string> optional_texts(const css::uno::Any& a, const char* argument);
 
-// The two count ranges of a call, each read as far as either is filled.
+// The two count ranges of a call as lines of cells, each read down to the
+// last cell filled in either (ranges of up to a few thousand cells are read
+// whole: cheaper than asking where they end); the rest counts as blank.
+// `document` may be empty (a call from outside Calc): booleans then read as
+// numbers.
 struct count_lines {
     cell_line successes, attempts;
     bool down = true;  // one group per row (a column of counts), else per column

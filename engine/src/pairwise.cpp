@@ -238,6 +238,10 @@ std::vector<pair_row> pairs_table(const counts& c, const table_options& o, p_cac
     const test_options to{test_method::score, adjust::p_values::none, family::all};
     test_options adjusted = to;
     adjusted.adjust = o.p;
+    // The raw p-values are shared by every row's adjustment: keep them once
+    // even when the caller brings no cache.
+    p_cache own(1);
+    if (!cache) cache = &own;
     std::vector<pair_row> rows;
     for (const auto& [a, b] : pairs_of(groups)) {
         const auto i = static_cast<double>(a->position), j = static_cast<double>(b->position);

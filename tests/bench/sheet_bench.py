@@ -7,6 +7,13 @@ recalculates a sheet of BLOCKS 2 x 3 tables, once with RATES.SAME.P (Pearson
 route) and once with the built-in CHISQ.TEST on the same counts, and prints
 the time of each and their ratio.
 
+    /usr/bin/python3 tests/bench/sheet_bench.py build/tallyrates.oxt pairs
+recalculates twelve lines with a RATES.PAIRS block and a DIFF.LOW/HIGH pair
+per comparison (133 formulas) after a count changes, beside as many
+CHISQ.TEST cells on the same counts; and the first against the later cells
+of Holm-adjusted exact RATES.PAIR.P on the same ranges (the later ones find
+the pairwise analysis in the cache).
+
     /usr/bin/python3 tests/bench/sheet_bench.py build/tallyrates.oxt ranges
 prints what one formula cell costs per recalculation when its count ranges
 are whole columns (A:A) against the same formula on the exact used rows,
@@ -113,11 +120,68 @@ def ranges(office):
         doc.close(True)
 
 
+def fill_twelve(sheet):
+    # The twelve lines of tests/bench/bench_pairs.cpp: a perfect pilot of 12
+    # beside runs of 140 to 1,140; A passed, B failed, C made, D..E expected.
+    rows = []
+    for g in range(12):
+        n = 12 if g == 0 else 40 + 100 * g
+        x = 12 if g == 0 else int(n * (0.80 + 0.015 * g))
+        rows.append([x, n - x, n])
+    data = tuple(tuple(float(v) for v in r) for r in with_expected(rows))
+    sheet.getCellRangeByName("A1:E12").setDataArray(data)
+    sheet.getCellRangeByName("F1:F12").setDataArray(tuple(("Line %d" % (g + 1),) for g in range(12)))
+
+
+def recalc_after_change(doc, sheet, repeats=5):
+    """Best time of a recalculation after a count changes (a new analysis each
+    time: the caches cannot answer)."""
+    best = float("inf")
+    for k in range(repeats):
+        sheet.getCellRangeByName("A12").setValue(900 - k)
+        t = time.perf_counter()
+        doc.calculateAll()
+        best = min(best, time.perf_counter() - t)
+    return best
+
+
+def pairs(office):
+    pairs_list = [(a, b) for a in range(1, 13) for b in range(a + 1, 13)]
+    results = {}
+    for name in ("PAIRS block", "CHISQ.TEST", "no formula", "PAIR.P first", "PAIR.P all 66"):
+        doc = office.new_sheet()
+        sheet = doc.Sheets.getByIndex(0)
+        fill_twelve(sheet)
+        if name == "PAIRS block":
+            sheet.getCellRangeByName("H1:N67").setArrayFormula("RATES.PAIRS(A1:A12;C1:C12;;;;F1:F12)")
+            cells = [("=RATES.DIFF.LOW(A1:A12;C1:C12;%d;%d)" % ab, "=RATES.DIFF.HIGH(A1:A12;C1:C12;%d;%d)" % ab)
+                     for ab in pairs_list]
+            sheet.getCellRangeByName("P1:Q66").setFormulaArray(tuple(cells))
+        elif name == "CHISQ.TEST":
+            sheet.getCellRangeByName("P1:P133").setFormulaArray(tuple(("=CHISQ.TEST(A1:B12;D1:E12)",)
+                                                                      for _ in range(133)))
+        elif name != "no formula":
+            chosen = pairs_list[:1] if name == "PAIR.P first" else pairs_list
+            sheet.getCellRangeByName("P1:P%d" % len(chosen)).setFormulaArray(tuple(
+                ('=RATES.PAIR.P(A1:A12;C1:C12;%d;%d;"holm";"exact")' % ab,) for ab in chosen))
+        results[name] = recalc_after_change(doc, sheet)
+        errors = sheet.getCellRangeByName("P1").getError()
+        doc.close(True)
+        print("%-14s %8.2f ms per recalculation%s" % (name, results[name] * 1e3, "  (Err:%d)" % errors if errors else ""))
+    print("PAIRS block / CHISQ.TEST (133 formulas each): %.1f" % (results["PAIRS block"] / results["CHISQ.TEST"]))
+    later = (results["PAIR.P all 66"] - results["PAIR.P first"]) / 65
+    first = results["PAIR.P first"] - results["no formula"]  # Calc's own cost of a recalculation taken out
+    print("PAIR.P exact, Holm: first cell %.1f us, each later cell %.1f us, ratio %.1f"
+          % (first * 1e6, later * 1e6, first / later))
+
+
 def main():
     office = lo.Office(sys.argv[1]).install().start()
     try:
         if len(sys.argv) > 2 and sys.argv[2] == "ranges":
             ranges(office)
+        elif len(sys.argv) > 2 and sys.argv[2] == "pairs":
+            pairs(office)
         else:
             blocks_against_chisq_test(office, int(sys.argv[2]) if len(sys.argv) > 2 else 3000)
     finally:
