@@ -41,11 +41,36 @@ RESULTS = [
 ]
 
 
+# Which ovens differ: every pair, 95 % Newcombe intervals, p adjusted by Holm
+# over all pairs. Seven rows of counts make 21 pairs: 22 rows with the header.
+PAIRS_TOP, PAIRS_ROWS = 40, 22
+
+
 def number_format(doc, code):
     formats = doc.NumberFormats
     locale = doc.CharLocale
     key = formats.queryKey(code, locale, False)
     return key if key != -1 else formats.addNew(code, locale)
+
+
+def add_interval_bars(office, chart, sheet_name):
+    """Error bars from the interval columns: a bar of 14 of 14 without its
+    interval would mislead (the chart2 API: an ErrorBar fed from cells)."""
+    series = chart.getFirstDiagram().getCoordinateSystems()[0].getChartTypes()[0].getDataSeries()[0]
+    provider = chart.getDataProvider()
+    bars = office.smgr.createInstanceWithContext("com.sun.star.chart2.ErrorBar", office.ctx)
+    bars.ErrorBarStyle = 7  # com.sun.star.chart.ErrorBarStyle.FROM_DATA
+    bars.ShowPositiveError = True
+    bars.ShowNegativeError = True
+    sequences = []
+    for column, role in (("I", "error-bars-y-positive"), ("J", "error-bars-y-negative")):
+        values = provider.createDataSequenceByRangeRepresentation("$'%s'.$%s$5:$%s$11" % (sheet_name, column, column))
+        values.Role = role
+        labeled = office.smgr.createInstanceWithContext("com.sun.star.chart2.data.LabeledDataSequence", office.ctx)
+        labeled.setValues(values)
+        sequences.append(labeled)
+    bars.setData(tuple(sequences))
+    series.ErrorBarY = bars
 
 
 def main():
@@ -70,9 +95,25 @@ def main():
             cell("B%d" % r).setValue(x)
             cell("C%d" % r).setValue(n)
             cell("E%d" % r).setValue(speed)
+        for col, text in zip("FGH", ["95 % low", "95 % high", "Stands out? (residual)"]):
+            cell(col + "4").setString(text)
+            cell(col + "4").CharWeight = 150
+            cell(col + "4").IsTextWrapped = True
+        percent = number_format(doc, "0.0%")
         for r in range(5, 12):
             cell("D%d" % r).setFormula('=IF(C%d>0;B%d/C%d;"")' % (r, r, r))
-            cell("D%d" % r).NumberFormat = number_format(doc, "0.0%")
+            # The interval for this oven's pass rate (Wilson), blank until counts are typed.
+            for col, fn in (("F", "LOW"), ("G", "HIGH")):
+                cell("%s%d" % (col, r)).setFormula('=IF(C%d>0;RATES.ONE.%s(%s;%d);"")' % (r, fn, COUNTS, r - 4))
+            # Distances of the interval ends from the rate: the chart's error bars.
+            cell("I%d" % r).setFormula('=IF(C%d>0;G%d-D%d;"")' % (r, r, r))
+            cell("J%d" % r).setFormula('=IF(C%d>0;D%d-F%d;"")' % (r, r, r))
+            for col in "DFG":
+                cell("%s%d" % (col, r)).NumberFormat = percent
+        cell("H5:H11").setArrayFormula("RATES.SAME.RESID(%s)" % COUNTS)
+        cell("H5:H11").NumberFormat = number_format(doc, "+0.00;-0.00")
+        cell("I4").setString("error bar up")
+        cell("J4").setString("error bar down")
         cell("A13").setString("Results")
         cell("A13").CharWeight = 150
         for k, (label, formula, fmt) in enumerate(RESULTS):
@@ -89,6 +130,16 @@ def main():
         cell("A25:A35").IsTextWrapped = True  # labels that name an oven are long
         cell("A37").setString("Caution: a small p-value says the ovens' rates differ beyond chance; it is not "
                               "engineering acceptance. Follow the standards that apply and have decisions reviewed.")
+        cell("A39").setString("Which ovens differ? Every pair: difference of pass rates with its 95 % interval "
+                              "(Newcombe), p-value and p adjusted by Holm over all pairs (array formula)")
+        cell("A39").CharWeight = 150
+        bottom = PAIRS_TOP + PAIRS_ROWS - 1
+        cell("A%d:G%d" % (PAIRS_TOP, bottom)).setArrayFormula("RATES.PAIRS(%s;;;;%s)" % (COUNTS, LABELS))
+        cell("C%d:E%d" % (PAIRS_TOP + 1, bottom)).NumberFormat = number_format(doc, "+0.0%;-0.0%")
+        cell("F%d:G%d" % (PAIRS_TOP + 1, bottom)).NumberFormat = number_format(doc, "0.0000")
+        cell("A%d:G%d" % (PAIRS_TOP, PAIRS_TOP)).CharWeight = 150
+        cell("C%d:G%d" % (PAIRS_TOP, PAIRS_TOP)).HoriJustify = 3  # RIGHT, over the numbers
+        cell("A%d:G%d" % (PAIRS_TOP, bottom)).IsTextWrapped = True
         # The check sentence wraps in a merged cell across the page; the
         # report's "why" overflows into the empty cells to its right.
         check = cell("B14:E14")
@@ -98,8 +149,11 @@ def main():
         cell("A14").VertJustify = 1
         sheet.Rows.getByIndex(13).OptimalHeight = True
         columns = sheet.Columns
-        for col, width in zip("ABCDEFGH", [7800, 3000, 2600, 2400, 3800, 2400, 2400, 2400]):
+        for col, width in zip("ABCDEFGH", [7800, 3600, 2600, 2400, 3800, 2400, 2600, 2800]):
             columns.getByName(col).Width = width
+        # The error-bar helper columns are for the chart only.
+        for col in "IJ":
+            columns.getByName(col).IsVisible = False
         # One landscape page: what colleagues print and file.
         style = doc.StyleFamilies.getByName("PageStyles").getByName(sheet.PageStyle)
         width, height = style.Width, style.Height
@@ -107,8 +161,10 @@ def main():
         style.Width, style.Height = max(width, height), min(width, height)
         style.ScaleToPagesX = 1
         style.ScaleToPagesY = 1
-        # Pass rate by oven, for the eye: to the right of the tallies.
-        rect = Rectangle(20500, 1500, 10500, 6800)
+        # Pass rate by oven with its interval, for the eye.
+        # To the right of the tally, clear of the report's long sentences.
+        at = cell("K4").Position
+        rect = Rectangle(at.X + 500, at.Y, 12000, 8500)
         # Every row that invites counts (5 to 11), so a new oven appears as it is typed.
         label_area = CellRangeAddress(0, 0, 3, 0, 10)  # A4:A11
         sheet.Charts.addNewByName("PassRates", rect, (label_area, CellRangeAddress(0, 3, 3, 3, 10)), True, True)
@@ -119,7 +175,12 @@ def main():
         chart.Diagram.HasXAxisTitle = True
         chart.Diagram.XAxisTitle.String = "Oven"
         chart.Diagram.HasYAxisTitle = True
-        chart.Diagram.YAxisTitle.String = "Boards passing inspection"
+        chart.Diagram.YAxisTitle.String = "Boards passing inspection (95 % interval)"
+        add_interval_bars(office, chart, sheet.Name)
+        # From 50 %: room for the intervals of short runs, without hiding a poor oven.
+        y_axis = chart.Diagram.YAxis
+        y_axis.AutoMin, y_axis.AutoMax = False, False
+        y_axis.Min, y_axis.Max = 0.5, 1.0
         doc.calculateAll()
         out = os.path.join(office.workdir, "reflow-oven-trial.fods")
         lo.save_as(doc, out, "OpenDocument Spreadsheet Flat XML")

@@ -31,9 +31,9 @@ def main():
         print(cell("A1").getString())
         print()
         for r in range(4, 12):
-            row = [cell("%s%d" % (c, r)).getString() for c in "ABCDE"]
+            row = [lo.cell_text(cell("%s%d" % (c, r))) for c in "ABCDEFGH"]
             if any(row):
-                print("  %-24s %15s %11s %10s %20s" % tuple(row))
+                print("  %-22s %15s %11s %10s %20s %9s %9s %23s" % tuple(row))
         print()
         errors = []
         for r in list(range(14, 24)) + list(range(25, 36)):
@@ -43,6 +43,14 @@ def main():
                 print("  %-46s %s" % (label, shown))
             if shown.startswith("Err:"):
                 errors.append("B%d" % r)
+        print()
+        print("  " + cell("A39").getString())
+        for r in range(40, 62):
+            row = [lo.cell_text(cell("%s%d" % (c, r))) for c in "ABCDEFG"]
+            if any(row):
+                print("  %-22s %-22s %17s %19s %20s %14s %16s" % tuple(row))
+            errors += ["%s%d" % (c, r) for c, shown in zip("ABCDEFG", row) if shown.startswith("Err:")]
+        errors += ["%s%d" % (c, r) for c in "FGH" for r in range(5, 12) if lo.cell_text(cell("%s%d" % (c, r))).startswith("Err:")]
         pdf = os.path.join(office.workdir, "reflow-oven-trial.pdf")
         lo.save_as(doc, pdf, "calc_pdf_Export")
         doc.close(True)

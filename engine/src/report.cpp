@@ -38,9 +38,10 @@ std::vector<report_row> blank_rows() {
             {"groups compared", {}},
             {"smallest expected count", {}},
             {"expected counts below 5", {}},
-            {"random tables drawn", {}},
-            {"p lies above", {}},
-            {"p lies below", {}}};
+            // Rows 8 to 10 belong to the route: blank unless it fills them.
+            {"", {}},
+            {"", {}},
+            {"", {}}};
 }
 
 // Rows 9 and 10: where the p-value lies, and what kind of range that is.
@@ -59,7 +60,7 @@ void route_rows(std::vector<report_row>& rows, const omnibus::result& r) {
     rows[3].value = std::string(route_text(r.used));
     rows[4].value = r.why;
     if (r.has_monte_carlo) {
-        rows[8].value = static_cast<double>(r.mc.draws);
+        rows[8] = {"random tables drawn", static_cast<double>(r.mc.draws)};
         range_rows(rows, "95 % range for the exact p", r.mc.low, r.mc.high);
     } else if (r.has_exact && r.exact.p_low != r.exact.p_high) {
         range_rows(rows, "exact p certified", r.exact.p_low, r.exact.p_high);

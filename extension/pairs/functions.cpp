@@ -54,10 +54,10 @@ array pairs_array(const counts& c, const std::vector<pairwise::pair_row>& rows, 
     };
     const std::string pairs_text = count_of(rows.size(), "pair", "pairs");
     const Any header[7] = {Any(ou("group i (" + pairs_text + ", " + std::to_string(rows.size() + 1) + " rows)")),
-                           Any(ou("group j")), Any(ou("difference i - j")),
-                           Any(ou("low, " + level_words(o.level, o.intervals))),
-                           Any(ou("high, " + level_words(o.level, o.intervals))), Any(ou("p, score test")),
-                           Any(ou("p adjusted, " + std::string(adjust_word)))};
+                           Any(ou("group j")), Any(ou("rate i - rate j")),
+                           Any(ou("low (" + level_words(o.level, o.intervals) + ")")),
+                           Any(ou("high (" + level_words(o.level, o.intervals) + ")")), Any(ou("p (score test)")),
+                           Any(ou("p adjusted (" + std::string(adjust_word) + ")"))};
     out.getArray()[0] = css::uno::Sequence<Any>(header, 7);
     for (std::size_t k = 0; k < height - 1; ++k) {
         css::uno::Sequence<Any> line(7);

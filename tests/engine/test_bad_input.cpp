@@ -9,8 +9,9 @@
 #include "tallyrates/check.hpp"
 #include "tallyrates/errors.hpp"
 #include "tallyrates/omnibus.hpp"
-#include "tallyrates/trend.hpp"
+#include "tallyrates/one_rate.hpp"
 #include "tallyrates/pairwise.hpp"
+#include "tallyrates/trend.hpp"
 
 using namespace tallyrates;
 
@@ -40,6 +41,15 @@ TEST(BadInput, EveryEntryPointWithValidCountsAndBadArguments) {
     for (double bad : bad_values) {
         EXPECT_THROW(pairwise::difference(c, bad, 1), invalid_input) << bad;
         EXPECT_THROW(pairwise::difference(c, 1, bad), invalid_input) << bad;
+        EXPECT_THROW(pairwise::difference_interval(c, bad, 1, {}), invalid_input) << bad;
+        EXPECT_THROW(pairwise::same_rate_p(c, 1, bad, pairwise::test_options{}), invalid_input) << bad;
+        EXPECT_THROW(one_rate::bounds(c, bad, 0.95, one_rate::method::wilson), invalid_input) << bad;
+        if (!(bad > 0 && bad < 1)) {  // a bad position may still be a good level (0.5)
+            pairwise::interval_options level;
+            level.level = bad;
+            EXPECT_THROW(pairwise::difference_interval(c, 1, 2, level), invalid_input) << bad;
+            EXPECT_THROW(one_rate::bounds(c, 1, bad, one_rate::method::exact), invalid_input) << bad;
+        }
         std::vector<entry> scores = col({1, 2, 3});
         scores[0] = entry::number(bad);
         if (std::isfinite(bad)) {
@@ -84,6 +94,32 @@ TEST(BadInput, ResultsAreFiniteForEveryMethodOnAwkwardTables) {
             }
         }
         EXPECT_NO_THROW(check_text(col({}), col({})));
+        // The pairs family on the same extremes: finite, inside [-1, 1] / [0, 1],
+        // or a refusal of the exact test's enumeration.
+        for (auto how : {pairwise::interval_method::newcombe, pairwise::interval_method::score,
+                         pairwise::interval_method::agresti_caffo, pairwise::interval_method::wald}) {
+            pairwise::interval_options o;
+            o.how = how;
+            const auto ci = pairwise::difference_interval(c, 1, 2, o);
+            EXPECT_TRUE(ci.low >= -1 && ci.low <= ci.high && ci.high <= 1) << ci.low << " " << ci.high;
+        }
+        for (auto how : {one_rate::method::wilson, one_rate::method::exact, one_rate::method::jeffreys,
+                         one_rate::method::agresti_coull}) {
+            const auto b = one_rate::bounds(c, 2, 0.95, how);
+            EXPECT_TRUE(b.low >= 0 && b.low <= b.high && b.high <= 1);
+        }
+        for (auto how : {pairwise::test_method::score, pairwise::test_method::exact}) {
+            try {
+                const double p = pairwise::same_rate_p(c, 1, 2, pairwise::test_options{how});
+                EXPECT_TRUE(p >= 0 && p <= 1) << p;
+            } catch (const budget_exceeded&) {
+                EXPECT_EQ(how, pairwise::test_method::exact);
+            }
+        }
+        for (const auto& r : omnibus::adjusted_residuals(c))
+            if (r) {
+                EXPECT_TRUE(std::isfinite(*r));
+            }
     }
 }
 

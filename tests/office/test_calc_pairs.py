@@ -84,8 +84,8 @@ class PairsTable(SheetCase):
         self.doc.calculateAll()
         cell = lambda c, k: self.sheet.getCellRangeByName("%s%d" % (c, k))
         self.assertEqual(cell("E", 1).getString(), "group i (10 pairs, 11 rows)")
-        self.assertEqual(cell("H", 1).getString(), "low, 95 % each")
-        self.assertEqual(cell("K", 1).getString(), "p adjusted, holm")
+        self.assertEqual(cell("H", 1).getString(), "low (95 % each)")
+        self.assertEqual(cell("K", 1).getString(), "p adjusted (holm)")
         pairs = [(a, b) for a in range(1, 6) for b in range(a + 1, 6)]
         for k, (a, b) in enumerate(pairs):
             row = k + 2
