@@ -297,8 +297,10 @@ def pair_rows(w):
         row(w, name, x, n, "pair_exact_p", fisher, SCIPY + ' fisher_exact(alternative="two-sided")')
 
 
-# A tally of five lines for the families of comparisons (invented).
+# A tally of five lines for the families of comparisons, and one of twenty
+# lots (invented).
 FAMILY = ("f_five_lines", [45, 171, 12, 30, 88], [50, 190, 12, 40, 100])
+TWENTY = ("f_twenty_lots", [40 + (7 * g) % 11 for g in range(20)], [50 + (3 * g) % 5 for g in range(20)])
 ADJUST = {"holm": "holm", "hochberg": "simes-hochberg", "bh": "fdr_bh", "bonferroni": "bonferroni",
           "sidak": "sidak"}
 
@@ -317,6 +319,16 @@ def family_rows(w):
                         STATSMODELS + ' multipletests(method="%s") of %s' %
                         (theirs, SCIPY + (" chi2_contingency(correction=False)" if test == "score"
                                           else " fisher_exact")))
+
+
+def twenty_rows(w):
+    """Holm over all 190 pairs of twenty lots (score test)."""
+    name, x, n = TWENTY
+    pairs = [(a, b) for a in range(len(x)) for b in range(a + 1, len(x))]
+    raw = [pair_p_values(x[a], n[a], x[b], n[b])[0] for a, b in pairs]
+    for (a, b), v in zip(pairs, multipletests(raw, method="holm")[1]):
+        row(w, name, x, n, "family_score_holm_all_%d_%d" % (a + 1, b + 1), v,
+            STATSMODELS + ' multipletests(method="holm") of ' + SCIPY + " chi2_contingency(correction=False)")
 
 
 RESID_CASES = [
@@ -341,6 +353,7 @@ def main():
     one_rate_rows(w)
     pair_rows(w)
     family_rows(w)
+    twenty_rows(w)
     residual_rows(w)
 
 
