@@ -1,0 +1,111 @@
+// Tests of the Bayesian answers about one group (bayes.hpp) against
+// 30-digit mpmath rows of tests/reference/omnibus.csv (generate.py: the
+// incomplete beta function by its continued fraction, bisection and findroot,
+// the beta-binomial sum; NEXT rows also agree with scipy stats.betabinom).
+// Accuracy asked by issue 8: absolute 1e-10, relative 1e-8 below 1e-3.
+#include <gtest/gtest.h>
+
+#include <cmath>
+#include <map>
+#include <sstream>
+
+#include "reference.hpp"
+#include "tallyrates/bayes.hpp"
+#include "tallyrates/errors.hpp"
+
+using namespace tallyrates;
+using tallyrates::testing::reference_rows;
+
+namespace {
+
+std::vector<std::string> fields(const std::string& quantity) {
+    std::vector<std::string> out;
+    std::stringstream in(quantity);
+    for (std::string s; std::getline(in, s, '|');) out.push_back(s);
+    return out;
+}
+
+void expect_close(double got, double want, const tallyrates::testing::reference_row& r) {
+    const double tol = std::fabs(want) < 1e-3 ? std::max(1e-8 * std::fabs(want), 1e-300) : 1e-10;
+    EXPECT_NEAR(got, want, tol) << r.name << " " << r.quantity << " " << r.source;
+}
+
+bayes::beta_law law_of(const tallyrates::testing::reference_row& r, const std::vector<std::string>& f) {
+    const bayes::prior p{std::stod(f[1]), std::stod(f[2])};
+    return bayes::posterior(counts::from_values(r.successes, r.attempts), 1, p);
+}
+
+}  // namespace
+
+TEST(Posterior, ReferenceRows) {
+    std::map<std::string, int> checked;
+    for (const auto& r : reference_rows("post_")) {
+        const auto f = fields(r.quantity);
+        const auto law = law_of(r, f);
+        const std::string& what = f[0];
+        if (what == "post_mean") expect_close(bayes::mean(law), r.value, r);
+        else if (what == "post_central_low") expect_close(bayes::credible(law, 0.95, bayes::kind::central).low, r.value, r);
+        else if (what == "post_central_high") expect_close(bayes::credible(law, 0.95, bayes::kind::central).high, r.value, r);
+        else if (what == "post_hpd_low") expect_close(bayes::credible(law, 0.95, bayes::kind::hpd).low, r.value, r);
+        else if (what == "post_hpd_high") expect_close(bayes::credible(law, 0.95, bayes::kind::hpd).high, r.value, r);
+        else if (what == "post_above") expect_close(bayes::above(law, std::stod(f[3]), bayes::goal::high), r.value, r);
+        else if (what == "post_next")
+            expect_close(bayes::next_at_least(law, std::stoll(f[3]), std::stoll(f[4])), r.value, r);
+        else ADD_FAILURE() << "unknown quantity " << r.quantity;
+        ++checked[what];
+    }
+    EXPECT_EQ(checked["post_mean"], 7);
+    EXPECT_EQ(checked["post_hpd_low"], 7);
+    EXPECT_EQ(checked["post_above"], 11);
+    EXPECT_EQ(checked["post_next"], 8);
+}
+
+TEST(Posterior, GoalLowIsTheOtherSide) {
+    // P(rate < r) + P(rate > r) = 1 for a continuous law (identity, an extra test only).
+    const bayes::beta_law law{4, 37};
+    EXPECT_NEAR(bayes::above(law, 0.1, bayes::goal::low) + bayes::above(law, 0.1, bayes::goal::high), 1.0, 1e-15);
+}
+
+TEST(Posterior, HpdIsNoWiderThanCentral) {
+    // The highest-density interval is the shortest of its level (Chen & Shao 1999).
+    for (const auto& law : {bayes::beta_law{38, 16}, bayes::beta_law{4, 39998}, bayes::beta_law{2, 3}}) {
+        const auto h = bayes::credible(law, 0.9, bayes::kind::hpd);
+        const auto c = bayes::credible(law, 0.9, bayes::kind::central);
+        EXPECT_LE(h.high - h.low, c.high - c.low + 1e-15);
+    }
+}
+
+TEST(Posterior, BadArgumentsAreRefused) {
+    const auto c = counts::from_entries(std::vector{entry::number(3), entry::blank()},
+                                        std::vector{entry::number(10), entry::blank()});
+    EXPECT_THROW(bayes::posterior(c, 1, {0, 1}), invalid_input);
+    EXPECT_THROW(bayes::posterior(c, 1, {1, -2}), invalid_input);
+    EXPECT_THROW(bayes::posterior(c, 1, {NAN, 1}), invalid_input);
+    EXPECT_THROW(bayes::posterior(c, 2, {}), invalid_input);  // blank row
+    const bayes::beta_law law{4, 8};
+    EXPECT_THROW(bayes::credible(law, 1.0, bayes::kind::central), invalid_input);
+    EXPECT_THROW(bayes::above(law, 1.5, bayes::goal::high), invalid_input);
+    EXPECT_THROW(bayes::next_at_least(law, 5, 6), invalid_input);
+    EXPECT_THROW(bayes::next_at_least(law, -1, 0), invalid_input);
+    EXPECT_THROW(bayes::next_at_least(law, 100000001, 3), budget_exceeded);
+    // A U-shaped posterior (no data, prior below 1) has no single HPD interval.
+    EXPECT_THROW(bayes::credible(bayes::beta_law{0.5, 0.5}, 0.9, bayes::kind::hpd), invalid_input);
+}
+
+TEST(Posterior, AGroupWithoutAttemptsKeepsThePrior) {
+    // functions.md: attempts = 0 is allowed; the posterior is the prior.
+    const auto c = counts::from_values(std::vector<std::int64_t>{0, 5}, std::vector<std::int64_t>{0, 9});
+    const auto law = bayes::posterior(c, 1, {2, 3});
+    EXPECT_EQ(law.a, 2.0);
+    EXPECT_EQ(law.b, 3.0);
+}
+
+TEST(Posterior, NextStaysExactWhenThePredictiveLawIsUShaped) {
+    // Jeffreys' prior, 0 of 0: Beta(0.5, 0.5); the predictive law of 10 further
+    // attempts is U-shaped. P(all 10 succeed) = B(10.5, 0.5) / B(0.5, 0.5)
+    // (the definition, evaluated here with std::lgamma).
+    const double want = std::exp(std::lgamma(10.5) + std::lgamma(0.5) - std::lgamma(11.0) - 2 * std::lgamma(0.5) +
+                                 std::lgamma(1.0));
+    EXPECT_NEAR(bayes::next_at_least({0.5, 0.5}, 10, 10), want, 1e-14);
+    EXPECT_NEAR(bayes::next_at_least({0.5, 0.5}, 10, 1), 1 - want, 1e-14);  // symmetric law
+}
