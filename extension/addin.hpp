@@ -60,6 +60,18 @@ public:
     double SAL_CALL oneHigh(const caller& document, const cells& successes, const cells& attempts, double i,
                             const Any& level, const Any& method) override;
 
+    // ---- Bayesian family (bayes/functions.cpp) ----
+    double SAL_CALL postMean(const caller& document, const cells& successes, const cells& attempts, double i,
+                             const Any& prior_a, const Any& prior_b) override;
+    double SAL_CALL postLow(const caller& document, const cells& successes, const cells& attempts, double i,
+                            const Any& level, const Any& kind, const Any& prior_a, const Any& prior_b) override;
+    double SAL_CALL postHigh(const caller& document, const cells& successes, const cells& attempts, double i,
+                             const Any& level, const Any& kind, const Any& prior_a, const Any& prior_b) override;
+    double SAL_CALL postAbove(const caller& document, const cells& successes, const cells& attempts, double i,
+                              double rate, const Any& goal, const Any& prior_a, const Any& prior_b) override;
+    double SAL_CALL postNext(const caller& document, const cells& successes, const cells& attempts, double i,
+                             double m, const Any& k, const Any& prior_a, const Any& prior_b) override;
+
     // ---- XAddIn, XServiceName, XServiceInfo (addin.cpp) ----
     OUString SAL_CALL getProgrammaticFuntionName(const OUString& display) override;
     OUString SAL_CALL getDisplayFunctionName(const OUString& name) override;

@@ -41,6 +41,7 @@ struct function {
 // Each family's entries (defined in its own catalog.cpp).
 std::span<const function> omnibus_functions();
 std::span<const function> pairs_functions();
+std::span<const function> bayes_functions();
 
 // Every family, in the order of the function reference.
 std::span<const function> functions();

@@ -31,6 +31,18 @@ inline constexpr argument j{"j", "Position of the second group, counted the same
 inline constexpr argument level{
     "level", "Confidence level between 0 and 1: 0.95 means the interval covers the true value 95 times in 100.",
     "0.95"};
+inline constexpr argument prior_a{
+    "prior_a",
+    "What you believed before these counts, as successes: with prior_b, a Beta prior shared by every group. "
+    "1 and 1 (the default) treat every rate as equally likely; 0.5 and 0.5 is Jeffreys' prior. Above 0.",
+    "1"};
+inline constexpr argument prior_b{"prior_b", "What you believed before these counts, as failures (see prior_a). Above 0.",
+                                  "1"};
+inline constexpr argument goal{
+    "goal",
+    "\"high\" when successes are good (units within specification), \"low\" when the counts are defects, so that "
+    "a lower rate is the better one.",
+    "\"high\""};
 inline constexpr argument labels{
     "labels",
     "Cells with the group names (oven, line, lot), the same size as the count ranges; messages then name the "

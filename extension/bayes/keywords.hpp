@@ -1,0 +1,25 @@
+// bayes/keywords.hpp - the words users type for the options of the Bayesian
+// family (RATES.POST.*) and their engine enums. Parsing is arguments::keyword
+// in the engine. No UNO types.
+#pragma once
+
+#include <array>
+
+#include "tallyrates/arguments.hpp"
+#include "tallyrates/bayes.hpp"
+
+namespace tallyrates::keywords {
+
+using arguments::word;
+
+inline constexpr std::array<word<bayes::kind>, 2> credible_kind{{
+    {"central", bayes::kind::central},
+    {"hpd", bayes::kind::hpd},
+}};
+
+inline constexpr std::array<word<bayes::goal>, 2> goal{{
+    {"high", bayes::goal::high},
+    {"low", bayes::goal::low},
+}};
+
+}  // namespace tallyrates::keywords

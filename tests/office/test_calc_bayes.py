@@ -1,0 +1,68 @@
+#!/usr/bin/python3
+"""The Bayesian family inside a real LibreOffice with the installed .oxt.
+
+Values are compared with the 30-digit mpmath rows of
+tests/reference/omnibus.csv (generate.py); each comparison names its source.
+"""
+import harness
+from harness import SheetCase
+
+
+def post_rows():
+    for row in harness.reference_rows():
+        if row["quantity"].startswith("post_"):
+            f = row["quantity"].split("|")
+            row["what"], row["a"], row["b"], row["rest"] = f[0], f[1], f[2], f[3:]
+            yield row
+
+
+FORMULA = {
+    "post_mean": "=RATES.POST.MEAN({r};1;{a};{b})",
+    "post_central_low": '=RATES.POST.LOW({r};1;0.95;"central";{a};{b})',
+    "post_central_high": "=RATES.POST.HIGH({r};1;;;{a};{b})",
+    "post_hpd_low": '=RATES.POST.LOW({r};1;;"hpd";{a};{b})',
+    "post_hpd_high": '=RATES.POST.HIGH({r};1;0.95;"HPD";{a};{b})',
+    "post_above": '=RATES.POST.ABOVE({r};1;{rest[0]};"high";{a};{b})',
+    "post_next": "=RATES.POST.NEXT({r};1;{rest[0]};{rest[1]};{a};{b})",
+}
+
+
+class Posterior(SheetCase):
+    def test_every_reference_row(self):
+        checked = 0
+        for row in post_rows():
+            r = self.put_counts(row["successes"], row["attempts"])
+            self.formula("D1", FORMULA[row["what"]].format(r=r, a=row["a"], b=row["b"], rest=row["rest"]))
+            want = row["value"]
+            tol = max(1e-8 * abs(want), 1e-300) if abs(want) < 1e-3 else 1e-10
+            self.assertLessEqual(abs(self.value_of("D1") - want), tol,
+                                 "%s %s (%s)" % (row["case"], row["quantity"], row["source"]))
+            checked += 1
+        self.assertEqual(checked, 54)
+
+    def test_defaults_goal_low_and_a_group_without_attempts(self):
+        r = self.put_counts([14, 0, None], [14, 0, None])
+        self.formula("D1", "=RATES.POST.MEAN(%s;1)" % r)
+        self.assertAlmostEqual(self.value_of("D1"), 15 / 16, places=15)  # (x + 1) / (n + 2), the flat prior
+        self.formula("D2", "=RATES.POST.MEAN(%s;2;2;3)" % r)
+        self.assertAlmostEqual(self.value_of("D2"), 2 / 5, places=15)  # no attempts: the prior's mean
+        self.formula("D3", '=RATES.POST.ABOVE(%s;1;0.9;"low")+RATES.POST.ABOVE(%s;1;0.9)' % (r, r))
+        self.assertAlmostEqual(self.value_of("D3"), 1.0, places=14)
+        self.formula("D4", "=RATES.POST.NEXT(%s;1;20)" % r)  # k defaults to m
+        self.formula("D5", "=RATES.POST.NEXT(%s;1;20;20)" % r)
+        self.assertEqual(self.value_of("D4"), self.value_of("D5"))
+
+    def test_bad_arguments_give_err502(self):
+        r = self.put_counts([14, None], [14, None])
+        for text in ("=RATES.POST.MEAN(%s;1;0)" % r, "=RATES.POST.MEAN(%s;2)" % r,
+                     '=RATES.POST.LOW(%s;1;1.2)' % r, '=RATES.POST.LOW(%s;1;;"widest")' % r,
+                     "=RATES.POST.ABOVE(%s;1;1.5)" % r, '=RATES.POST.ABOVE(%s;1;0.9;"up")' % r,
+                     "=RATES.POST.NEXT(%s;1;5;6)" % r, "=RATES.POST.NEXT(%s;1;2.5)" % r):
+            self.formula("D1", text)
+            self.assertEqual(self.shown("D1"), "Err:502", text)
+        self.formula("D2", "=RATES.POST.NEXT(%s;1;1E+9)" % r)
+        self.assertEqual(self.shown("D2"), "Err:523")
+
+
+if __name__ == "__main__":
+    harness.main()
