@@ -110,6 +110,16 @@ def main():
             cell("J%d" % r).setFormula('=IF(C%d>0;D%d-F%d;"")' % (r, r, r))
             for col in "DFG":
                 cell("%s%d" % (col, r)).NumberFormat = percent
+        # How sure each oven meets the plant's target (Bayesian, flat prior).
+        cell("A3").setString("Plant target pass rate")
+        cell("B3").setValue(0.95)
+        cell("B3").NumberFormat = percent
+        cell("K4").setString("P(pass rate above target)")
+        cell("K4").CharWeight = 150
+        cell("K4").IsTextWrapped = True
+        for r in range(5, 12):
+            cell("K%d" % r).setFormula('=IF(C%d>0;RATES.POST.ABOVE(%s;%d;$B$3);"")' % (r, COUNTS, r - 4))
+            cell("K%d" % r).NumberFormat = number_format(doc, "0.00")
         cell("H5:H11").setArrayFormula("RATES.SAME.RESID(%s)" % COUNTS)
         cell("H5:H11").NumberFormat = number_format(doc, "+0.00;-0.00")
         cell("I4").setString("error bar up")
@@ -149,7 +159,7 @@ def main():
         cell("A14").VertJustify = 1
         sheet.Rows.getByIndex(13).OptimalHeight = True
         columns = sheet.Columns
-        for col, width in zip("ABCDEFGH", [7800, 3600, 2600, 2400, 3800, 2400, 2600, 2800]):
+        for col, width in zip("ABCDEFGHIJK", [7800, 3600, 2600, 2400, 3800, 2400, 2600, 2800, 0, 0, 3000]):
             columns.getByName(col).Width = width
         # The error-bar helper columns are for the chart only.
         for col in "IJ":
@@ -163,7 +173,7 @@ def main():
         style.ScaleToPagesY = 1
         # Pass rate by oven with its interval, for the eye.
         # To the right of the tally, clear of the report's long sentences.
-        at = cell("K4").Position
+        at = cell("L4").Position
         rect = Rectangle(at.X + 500, at.Y, 12000, 8500)
         # Every row that invites counts (5 to 11), so a new oven appears as it is typed.
         label_area = CellRangeAddress(0, 0, 3, 0, 10)  # A4:A11

@@ -30,10 +30,11 @@ def main():
         cell = sheet.getCellRangeByName
         print(cell("A1").getString())
         print()
+        print("  %s %s" % (cell("A3").getString(), cell("B3").getString()))
         for r in range(4, 12):
-            row = [lo.cell_text(cell("%s%d" % (c, r))) for c in "ABCDEFGH"]
+            row = [lo.cell_text(cell("%s%d" % (c, r))) for c in "ABCDEFGHK"]
             if any(row):
-                print("  %-22s %15s %11s %10s %20s %9s %9s %23s" % tuple(row))
+                print("  %-22s %15s %11s %10s %20s %9s %9s %23s %26s" % tuple(row))
         print()
         errors = []
         for r in list(range(14, 24)) + list(range(25, 36)):
@@ -50,7 +51,7 @@ def main():
             if any(row):
                 print("  %-22s %-22s %17s %19s %20s %14s %16s" % tuple(row))
             errors += ["%s%d" % (c, r) for c, shown in zip("ABCDEFG", row) if shown.startswith("Err:")]
-        errors += ["%s%d" % (c, r) for c in "FGH" for r in range(5, 12) if lo.cell_text(cell("%s%d" % (c, r))).startswith("Err:")]
+        errors += ["%s%d" % (c, r) for c in "FGHK" for r in range(5, 12) if lo.cell_text(cell("%s%d" % (c, r))).startswith("Err:")]
         pdf = os.path.join(office.workdir, "reflow-oven-trial.pdf")
         lo.save_as(doc, pdf, "calc_pdf_Export")
         doc.close(True)
