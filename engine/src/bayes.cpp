@@ -5,6 +5,8 @@
 #include <boost/math/distributions/beta.hpp>
 #include <boost/math/special_functions/beta.hpp>
 #include <boost/math/special_functions/gamma.hpp>
+#include <boost/math/quadrature/gauss_kronrod.hpp>
+#include <boost/math/tools/minima.hpp>
 #include <boost/math/tools/roots.hpp>
 #include <cmath>
 #include <limits>
@@ -129,6 +131,191 @@ double next_at_least(const beta_law& law, std::int64_t m, std::int64_t k) {
         }
     }
     return std::clamp(sum * std::exp(log_scale), 0.0, 1.0);
+}
+
+
+namespace {
+
+// Quantile used to bound the integration windows: what lies beyond is below
+// 1e-100 of the mass (Boost's inverse incomplete beta gives up near 1e-300).
+// Probabilities below about 1e-90 therefore keep only their absolute accuracy.
+constexpr double window_tail = 1e-100;
+// Adaptive Gauss-Kronrod: relative tolerance and the deepest bisection (at
+// most 2^12 pieces of 61 points each side; a smooth integrand needs a few).
+constexpr double quad_tolerance = 1e-11;
+constexpr unsigned quad_depth = 12;
+
+
+// Boost's beta density is accurate for large parameters (no log-gamma
+// differences); it underflows only far in the tails, where it does not count.
+double log_density(const beta_law& law, double x) {
+    const double d = boost::math::ibeta_derivative(law.a, law.b, x);
+    return d > 0 ? std::log(d) : -HUGE_VAL;
+}
+
+// log B(a, b) by log-gamma: its absolute error grows like eps * a log a (about
+// 3e-9 at a = 10^6), which is what SAME can promise there.
+double log_beta(double a, double b) {
+    return boost::math::lgamma(a) + boost::math::lgamma(b) - boost::math::lgamma(a + b);
+}
+
+// log F(x) or log(1 - F(x)); -infinity when it underflows.
+double log_cdf(const beta_law& law, double x, bool upper) {
+    const double v =
+        upper ? boost::math::ibetac(law.a, law.b, x) : boost::math::ibeta(law.a, law.b, x);
+    return v > 0 ? std::log(v) : -HUGE_VAL;
+}
+
+// log of the integral of exp(g(x)) over [lo, hi], g finite somewhere inside:
+// split at the maximum of g, each side by adaptive Gauss-Kronrod on exp(g - max).
+template <class G>
+double log_integral(G g, double lo, double hi) {
+    if (!(hi > lo)) return -HUGE_VAL;
+    auto minus_g = [&](double x) {
+        const double v = g(x);
+        return std::isfinite(v) ? -v : std::numeric_limits<double>::max();
+    };
+    std::uintmax_t iterations = 200;
+    const auto [x_star, minus_g_star] =
+        boost::math::tools::brent_find_minima(minus_g, lo, hi, std::numeric_limits<double>::digits / 2, iterations);
+    const double g_star = -minus_g_star;
+    if (!std::isfinite(g_star)) return -HUGE_VAL;
+    auto f = [&](double x) {
+        const double v = g(x) - g_star;
+        return std::isfinite(v) ? std::exp(v) : 0.0;
+    };
+    double total = 0.0, error = 0.0;
+    for (const auto& [a, b] : {std::pair{lo, x_star}, std::pair{x_star, hi}}) {
+        if (!(b > a)) continue;
+        double part_error = 0.0;
+        total += boost::math::quadrature::gauss_kronrod<double, 61>::integrate(f, a, b, quad_depth, quad_tolerance,
+                                                                               &part_error);
+        error += part_error;
+    }
+    // Enough when either the relative error is small or the absolute error of
+    // the probability itself is far below what a sheet shows (1e-11).
+    if (error > 1e-8 * total && error * std::exp(g_star) > 1e-11)
+        throw no_convergence("A posterior probability's integral did not reach its accuracy (relative error "
+                             "estimate " + format_short(error / total) + ").");
+    return g_star + std::log(total);
+}
+
+// The point below which (or, upper, above which) the law holds `tail` of its
+// mass. Boost's inverse gives up when that point is extremely close to 0 or
+// 1 (Beta(4, 98) at 1e-100: about 1e-27); then a bisection on the logarithm
+// of the distance to that end, where the incomplete beta itself is accurate.
+double tail_point(const beta_law& law, double tail, bool upper) {
+    try {
+        return upper ? boost::math::ibetac_inv(law.a, law.b, tail) : boost::math::ibeta_inv(law.a, law.b, tail);
+    } catch (const boost::math::evaluation_error&) {
+        // Distance d to the end (0 or 1) between the smallest normal number and the mean's distance.
+        auto excess = [&](double log_d) {
+            const double d = std::exp(log_d);
+            const double mass = upper ? boost::math::ibetac(law.a, law.b, 1 - d) : boost::math::ibeta(law.a, law.b, d);
+            return (mass > 0 ? std::log(mass) : -HUGE_VAL) - std::log(tail);
+        };
+        double lo = std::log(std::numeric_limits<double>::min());
+        double hi = std::log(upper ? 1 - mean(law) : mean(law));
+        for (int k = 0; k < 200 && hi - lo > 1e-12; ++k) {
+            const double mid = (lo + hi) / 2;
+            (excess(mid) < 0 ? lo : hi) = mid;
+        }
+        const double d = std::exp(lo);  // on the side holding less than `tail`
+        return upper ? 1 - d : d;
+    }
+}
+
+// The window where law's mass lies.
+std::pair<double, double> window(const beta_law& law) {
+    return {tail_point(law, window_tail, false), tail_point(law, window_tail, true)};
+}
+
+// P(X > Y) directly: the integral of f_X(x) F_Y(x) over X's window.
+double ahead_direct(const beta_law& x, const beta_law& y) {
+    const auto [lo, hi] = window(x);
+    return std::exp(log_integral([&](double t) { return log_density(x, t) + log_cdf(y, t, false); }, lo, hi));
+}
+
+}  // namespace
+
+double ahead(const beta_law& x, const beta_law& y) {
+    // Integrate the side that is the smaller probability (the law with the
+    // lower mean is the one less likely to be ahead), so small answers keep
+    // their relative accuracy.
+    const double p = mean(x) <= mean(y) ? ahead_direct(x, y) : 1.0 - ahead_direct(y, x);
+    return std::clamp(p, 0.0, 1.0);
+}
+
+double best(std::span<const beta_law> laws, std::size_t i, goal g) {
+    const bool low = g == goal::low;
+    const auto [lo, hi] = window(laws[i]);
+    auto integrand = [&](double t) {
+        double v = log_density(laws[i], t);
+        for (std::size_t j = 0; j < laws.size() && std::isfinite(v); ++j)
+            if (j != i) v += log_cdf(laws[j], t, low);
+        return v;
+    };
+    return std::clamp(std::exp(log_integral(integrand, lo, hi)), 0.0, 1.0);
+}
+
+double loss(std::span<const beta_law> laws, std::size_t i, goal g) {
+    // E[max] = integral over [0, 1] of (1 - prod F_j); below every window the
+    // product is 0 (integrand 1), above every window it is 1 (integrand 0).
+    // For goal low, E[min] = integral of prod (1 - F_j).
+    double from = 1.0, to = 0.0;
+    for (const auto& law : laws) {
+        const auto [lo, hi] = window(law);
+        from = std::min(from, lo);
+        to = std::max(to, hi);
+    }
+    auto log_product = [&](double t, bool upper) {
+        double v = 0.0;
+        for (const auto& law : laws) v += log_cdf(law, t, upper);
+        return v;
+    };
+    double error = 0.0;
+    double expected_best = 0.0;
+    if (g == goal::high) {
+        auto f = [&](double t) { return -std::expm1(log_product(t, false)); };
+        expected_best = from + boost::math::quadrature::gauss_kronrod<double, 61>::integrate(f, from, to, quad_depth, quad_tolerance, &error);
+    } else {
+        auto f = [&](double t) { return std::exp(log_product(t, true)); };
+        expected_best = from + boost::math::quadrature::gauss_kronrod<double, 61>::integrate(f, from, to, quad_depth, quad_tolerance, &error);
+    }
+    if (error > 1e-10)
+        throw no_convergence("The expected loss's integral did not reach its accuracy (error estimate " +
+                             format_short(error) + ").");
+    const double shortfall = g == goal::high ? expected_best - mean(laws[i]) : mean(laws[i]) - expected_best;
+    return std::max(0.0, shortfall);
+}
+
+double same(std::span<const group> groups, prior p, double prior_same) {
+    p = checked(p);
+    if (!(prior_same > 0 && prior_same < 1))
+        throw invalid_input("The argument prior_same (" + format_number(prior_same) +
+                            ") must lie strictly between 0 and 1, for example 0.5.");
+    // log marginal likelihoods without the binomial coefficients, common to both:
+    // one rate: B(a + S, b + N - S) / B(a, b); independent rates: prod_g B(a + x_g, b + n_g - x_g) / B(a, b).
+    double s = 0, n = 0, log_apart = 0;
+    const double log_prior_norm = log_beta(p.a, p.b);
+    for (const auto& g : groups) {
+        const double x = static_cast<double>(g.successes), m = static_cast<double>(g.attempts);
+        s += x;
+        n += m;
+        log_apart += log_beta(p.a + x, p.b + m - x) - log_prior_norm;
+    }
+    const double log_together = log_beta(p.a + s, p.b + n - s) - log_prior_norm;
+    // posterior odds = prior odds x Bayes factor, then a probability, in logs.
+    const double log_odds = std::log(prior_same) - std::log1p(-prior_same) + log_together - log_apart;
+    return log_odds > 0 ? 1.0 / (1.0 + std::exp(-log_odds)) : std::exp(log_odds) / (1.0 + std::exp(log_odds));
+}
+
+std::vector<beta_law> posteriors(const counts& c, prior p) {
+    p = checked(p);
+    std::vector<beta_law> out;
+    for (const auto& g : c.groups())
+        out.push_back({p.a + static_cast<double>(g.successes), p.b + static_cast<double>(g.attempts - g.successes)});
+    return out;
 }
 
 }  // namespace tallyrates::bayes

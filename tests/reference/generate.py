@@ -467,6 +467,86 @@ def posterior_rows(w):
                 source + "; agrees with " + SCIPY + " stats.betabinom.sf")
 
 
+# Comparisons of groups (flat prior unless named): (name, successes, attempts).
+COMPARE_CASES = [
+    ("c_pilot_vs_oven", [14, 286], [14, 300]), ("c_mid", [37, 45], [52, 50]), ("c_far", [3, 95], [100, 100]),
+    ("c_ovens", [286, 271, 233, 14], [300, 290, 260, 14]), ("c_six", [9, 12, 7, 15, 11, 10], [20, 20, 20, 20, 20, 20]),
+    ("c_million", [999123, 998800], [1000000, 1000000]),
+]
+
+
+def mp_ahead_sum(a1, b1, a2, b2):
+    """P(X > Y), X ~ Beta(a1, b1), Y ~ Beta(a2, b2), a1 a whole number: the
+    finite sum of Cook (2005, "Exact calculation of beta inequalities", UT MD
+    Anderson Cancer Center technical report), in 30-digit mpmath."""
+    lb = lambda a, b: mpmath.log(mpmath.beta(a, b))
+    return mpmath.fsum(mpmath.exp(lb(a2 + i, b1 + b2) - lb(1 + i, b1) - lb(a2, b2)) / (b1 + i)
+                       for i in range(int(a1)))
+
+
+def mp_window(a, b, sds=14):
+    m = a / (a + b)
+    sd = mpmath.sqrt(a * b / ((a + b) ** 2 * (a + b + 1)))
+    return max(mpmath.mpf(0), m - sds * sd), min(mpmath.mpf(1), m + sds * sd)
+
+
+def mp_density(a, b, x):
+    return mpmath.exp((a - 1) * mpmath.log(x) + (b - 1) * mpmath.log1p(-x) - mpmath.log(mpmath.beta(a, b)))
+
+
+def mp_best(laws, i):
+    """P(law i is the highest), mpmath.quad of f_i prod F_j over law i's window."""
+    a, b = laws[i]
+    lo, hi = mp_window(a, b, 20)
+    mode = (a - 1) / (a + b - 2) if a > 1 and b > 1 else (lo + hi) / 2
+    f = lambda x: mp_density(a, b, x) * mpmath.fprod(mp_cdf(c, d, x) for k, (c, d) in enumerate(laws) if k != i)
+    return mpmath.quad(f, [lo, max(lo, min(hi, mode)), hi])
+
+
+def mp_expected_max(laws):
+    lo = min(mp_window(a, b, 20)[0] for a, b in laws)
+    hi = max(mp_window(a, b, 20)[1] for a, b in laws)
+    means = sorted(a / (a + b) for a, b in laws)
+    f = lambda x: 1 - mpmath.fprod(mp_cdf(a, b, x) for a, b in laws)
+    return lo + mpmath.quad(f, [lo] + [m for m in means if lo < m < hi] + [hi])
+
+
+def mp_same(x, n, pa, pb, prior_same):
+    lb = lambda a, b: mpmath.loggamma(a) + mpmath.loggamma(b) - mpmath.loggamma(a + b)
+    together = lb(pa + sum(x), pb + sum(n) - sum(x)) - lb(pa, pb)
+    apart = mpmath.fsum(lb(pa + xi, pb + ni - xi) - lb(pa, pb) for xi, ni in zip(x, n))
+    log_odds = mpmath.log(prior_same) - mpmath.log(1 - prior_same) + together - apart
+    return 1 / (1 + mpmath.exp(-log_odds))
+
+
+def comparison_rows(w):
+    mpmath.mp.dps = 30
+    source = "mpmath " + mpmath.__version__ + " (30 digits; this file)"
+    for name, x, n in COMPARE_CASES:
+        laws = [(mpmath.mpf(1) + xi, mpmath.mpf(1) + ni - xi) for xi, ni in zip(x, n)]
+        (a1, b1), (a2, b2) = laws[0], laws[1]
+        if name == "c_million":
+            lo, hi = mp_window(a1, b1, 20)
+            p = mpmath.quad(lambda t: mp_density(a1, b1, t) * mp_cdf(a2, b2, t), [lo, a1 / (a1 + b1), hi])
+            how = source + ": quad of f_1 F_2, incomplete beta by continued fraction"
+        else:
+            p = mp_ahead_sum(a1, b1, a2, b2)
+            how = source + ": the finite sum of Cook (2005)"
+        row(w, name, x, n, "post_ahead|1|1|1|2", float(p), how)
+        if len(laws) > 2 or name == "c_mid":
+            for i in range(len(laws)):
+                row(w, name, x, n, "post_best|1|1|%d" % (i + 1), float(mp_best(laws, i)),
+                    source + ": quad of f_i prod F_j")
+            e_max = mp_expected_max(laws)
+            for i in range(len(laws)):
+                a, b = laws[i]
+                row(w, name, x, n, "post_loss|1|1|%d" % (i + 1), float(e_max - a / (a + b)),
+                    source + ": quad of 1 - prod F_j")
+        for prior_same in ("0.5", "0.9"):
+            row(w, name, x, n, "post_same|1|1|" + prior_same, float(mp_same(x, n, 1, 1, mpmath.mpf(prior_same))),
+                source + ": marginal likelihoods by loggamma")
+
+
 def main():
     w = csv.writer(sys.stdout, lineterminator="\n")
     w.writerow(["case", "successes", "attempts", "quantity", "value", "source"])
@@ -479,6 +559,7 @@ def main():
     twenty_rows(w)
     residual_rows(w)
     posterior_rows(w)
+    comparison_rows(w)
 
 
 if __name__ == "__main__":

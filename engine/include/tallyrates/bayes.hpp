@@ -15,9 +15,26 @@
 // - NEXT: the beta-binomial predictive law of the successes in m further
 //   attempts (Gelman et al. 2013, 2.4): its upper tail summed by the ratio of
 //   successive terms, starting from a term computed in logs.
+// Comparisons of groups are one-dimensional integrals over a rate x:
+// - AHEAD: P(rate_1 > rate_2) = integral of f_1(x) F_2(x) dx, taken on the
+//   side that is the smaller probability so that small answers keep their
+//   relative accuracy; BEST: P(group i is best) = integral of
+//   f_i(x) prod_{j != i} F_j(x) dx (1 - F_j for goal "low"); LOSS:
+//   E[max_j rate_j] - E[rate_i] with E[max] = integral of (1 - prod_j F_j(x)) dx.
+//   The integrand is kept in logs, integrated only where the mass is (between
+//   quantiles at 1e-100 of the laws involved, so what is cut is below 1e-90),
+//   split at its maximum (Brent's method), by adaptive Gauss-Kronrod (61
+//   points, Boost.Math) to a relative error estimate of 1e-12; an estimate
+//   above 1e-9 is a failure (Err:523), never a silent answer.
+// - SAME: the posterior probability that all groups share one rate against
+//   all rates different, from the two marginal likelihoods in closed form
+//   (beta functions, in logs; Kass & Raftery 1995, JASA 90:773, for Bayes
+//   factors).
 #pragma once
 
 #include <cstdint>
+#include <span>
+#include <vector>
 
 #include "tallyrates/counts.hpp"
 #include "tallyrates/one_rate.hpp"
@@ -47,5 +64,18 @@ interval credible(const beta_law& law, double level, kind how);
 double above(const beta_law& law, double rate, goal g);
 // P(at least k successes in the next m attempts); 0 <= k <= m, m up to 10^7.
 double next_at_least(const beta_law& law, std::int64_t m, std::int64_t k);
+
+// P(rate of law x > rate of law y).
+double ahead(const beta_law& x, const beta_law& y);
+// P(law i has the best rate among `laws`) (the highest, or the lowest for goal low).
+double best(std::span<const beta_law> laws, std::size_t i, goal g);
+// Expected shortfall of choosing law i: E[best rate] - E[rate_i] (mirrored for goal low).
+double loss(std::span<const beta_law> laws, std::size_t i, goal g);
+// Posterior probability that every group shares one rate (prior probability
+// prior_same of that against all rates independent), for the groups' counts.
+double same(std::span<const group> groups, prior p, double prior_same);
+
+// The posteriors of every non-blank group of the tally, in range order.
+std::vector<beta_law> posteriors(const counts& c, prior p);
 
 }  // namespace tallyrates::bayes
