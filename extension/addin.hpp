@@ -72,6 +72,17 @@ public:
     double SAL_CALL postNext(const caller& document, const cells& successes, const cells& attempts, double i,
                              double m, const Any& k, const Any& prior_a, const Any& prior_b) override;
 
+    double SAL_CALL postAhead(const caller& document, const cells& successes, const cells& attempts, double i, double j,
+                              const Any& prior_a, const Any& prior_b) override;
+    array SAL_CALL postOrder(const caller& document, const cells& successes, const cells& attempts,
+                             const Any& prior_a, const Any& prior_b) override;
+    double SAL_CALL postBest(const caller& document, const cells& successes, const cells& attempts, double i,
+                             const Any& goal, const Any& prior_a, const Any& prior_b) override;
+    double SAL_CALL postLoss(const caller& document, const cells& successes, const cells& attempts, double i,
+                             const Any& goal, const Any& prior_a, const Any& prior_b) override;
+    double SAL_CALL postSame(const caller& document, const cells& successes, const cells& attempts,
+                             const Any& prior_same, const Any& prior_a, const Any& prior_b) override;
+
     // ---- XAddIn, XServiceName, XServiceInfo (addin.cpp) ----
     OUString SAL_CALL getProgrammaticFuntionName(const OUString& display) override;
     OUString SAL_CALL getDisplayFunctionName(const OUString& name) override;

@@ -41,6 +41,13 @@ constexpr std::array mean_args{successes, attempts, i, prior_a, prior_b};
 constexpr std::array bound_args{successes, attempts, i, credible_level, kind, prior_a, prior_b};
 constexpr std::array above_args{successes, attempts, i, rate, shared::goal, prior_a, prior_b};
 constexpr std::array next_args{successes, attempts, i, further, at_least, prior_a, prior_b};
+constexpr std::array ahead_args{successes, attempts, i, shared::j, prior_a, prior_b};
+constexpr std::array order_args{successes, attempts, prior_a, prior_b};
+constexpr std::array best_args{successes, attempts, i, shared::goal, prior_a, prior_b};
+constexpr argument prior_same{
+    "prior_same",
+    "How likely you thought, before these counts, that every group shares one rate: between 0 and 1.", "0.5"};
+constexpr std::array same_args{successes, attempts, prior_same, prior_a, prior_b};
 
 constexpr std::array table{
     function{"postMean", "RATES.POST.MEAN",
@@ -64,6 +71,29 @@ constexpr std::array table{
              "Probability that at least k of the next m attempts of group i succeed, given its counts so far "
              "(k = m: all of them, e.g. the chance that the next 20 units all pass)." WHY_502_POST,
              next_args},
+    function{"postAhead", "RATES.POST.AHEAD",
+             "Probability that the rate of group i is above the rate of group j, given both groups' counts: "
+             "\"the pilot line is better than line 2 with probability 0.93\"." WHY_502_POST,
+             ahead_args},
+    function{"postOrder", "RATES.POST.ORDER",
+             "Square array, one row and one column per filled row of the tally: the probability that the row "
+             "group's rate is above the column group's. Enter as an array formula G rows by G columns for G "
+             "groups; the diagonal stays blank." WHY_502_POST,
+             order_args, true},
+    function{"postBest", "RATES.POST.BEST",
+             "Probability that group i has the best rate of all the groups (the highest; the lowest with goal "
+             "\"low\" for defect counts). Over all groups these add up to 1." WHY_502_POST,
+             best_args},
+    function{"postLoss", "RATES.POST.LOSS",
+             "Expected shortfall of choosing group i: how much rate (a fraction; format as %) you expect to give "
+             "up against the truly best group. Near 0: choosing i costs little even if it is not the best."
+             WHY_502_POST,
+             best_args},
+    function{"postSame", "RATES.POST.SAME",
+             "Probability that every group shares one rate rather than each having its own, given the counts. "
+             "It leans towards \"one rate\" when differences are small, more than a p-value does, and depends "
+             "on the prior: read it beside RATES.SAME.P." WHY_502_POST,
+             same_args},
 };
 
 #undef WHY_502_POST

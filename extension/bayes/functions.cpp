@@ -29,6 +29,18 @@ interval credible_of(const caller& document, const cells& successes, const cells
     return bayes::credible(law, convert::number(level, "level").value_or(0.95), how);
 }
 
+bayes::goal goal_of(const Any& goal) {
+    return arguments::keyword_or(convert::word(goal, "goal"), bayes::goal::high, keywords::goal, "goal");
+}
+
+// Index among the non-blank groups of the group at position i.
+std::size_t index_of(const counts& c, double i) {
+    const group& g = c.at_position(i, "i");
+    std::size_t k = 0;
+    while (c.groups()[k].position != g.position) ++k;
+    return k;
+}
+
 }  // namespace
 
 double rates::postMean(const caller& document, const cells& successes, const cells& attempts, double i,
@@ -51,8 +63,7 @@ double rates::postHigh(const caller& document, const cells& successes, const cel
 double rates::postAbove(const caller& document, const cells& successes, const cells& attempts, double i, double rate,
                         const Any& goal, const Any& prior_a, const Any& prior_b) {
     return guarded([&] {
-        const auto g = arguments::keyword_or(convert::word(goal, "goal"), bayes::goal::high, keywords::goal, "goal");
-        return finite(bayes::above(law_of(document, successes, attempts, i, prior_a, prior_b), rate, g));
+        return finite(bayes::above(law_of(document, successes, attempts, i, prior_a, prior_b), rate, goal_of(goal)));
     });
 }
 
@@ -62,6 +73,58 @@ double rates::postNext(const caller& document, const cells& successes, const cel
         const auto further = arguments::whole(m, 0, 1e15, "m");
         const auto needed = arguments::whole_or(convert::number(k, "k"), further, 0, 1e15, "k");
         return finite(bayes::next_at_least(law_of(document, successes, attempts, i, prior_a, prior_b), further, needed));
+    });
+}
+
+double rates::postAhead(const caller& document, const cells& successes, const cells& attempts, double i, double j,
+                        const Any& prior_a, const Any& prior_b) {
+    return guarded([&] {
+        const auto c = convert::counts_of(document, successes, attempts);
+        const auto p = prior_of(prior_a, prior_b);
+        return finite(bayes::ahead(bayes::posterior(c, i, p), bayes::posterior(c, j, p)));
+    });
+}
+
+array rates::postOrder(const caller& document, const cells& successes, const cells& attempts, const Any& prior_a,
+                       const Any& prior_b) {
+    return guarded([&] {
+        const auto laws = bayes::posteriors(convert::counts_of(document, successes, attempts), prior_of(prior_a, prior_b));
+        const auto g = static_cast<sal_Int32>(laws.size());
+        array out(g);
+        for (sal_Int32 r = 0; r < g; ++r) {
+            css::uno::Sequence<Any> row(g);
+            for (sal_Int32 col = 0; col < g; ++col)
+                row.getArray()[col] = r == col ? Any(OUString())
+                                               : Any(finite(bayes::ahead(laws[static_cast<std::size_t>(r)],
+                                                                         laws[static_cast<std::size_t>(col)])));
+            out.getArray()[r] = row;
+        }
+        return out;
+    });
+}
+
+double rates::postBest(const caller& document, const cells& successes, const cells& attempts, double i,
+                       const Any& goal, const Any& prior_a, const Any& prior_b) {
+    return guarded([&] {
+        const auto c = convert::counts_of(document, successes, attempts);
+        return finite(bayes::best(bayes::posteriors(c, prior_of(prior_a, prior_b)), index_of(c, i), goal_of(goal)));
+    });
+}
+
+double rates::postLoss(const caller& document, const cells& successes, const cells& attempts, double i,
+                       const Any& goal, const Any& prior_a, const Any& prior_b) {
+    return guarded([&] {
+        const auto c = convert::counts_of(document, successes, attempts);
+        return finite(bayes::loss(bayes::posteriors(c, prior_of(prior_a, prior_b)), index_of(c, i), goal_of(goal)));
+    });
+}
+
+double rates::postSame(const caller& document, const cells& successes, const cells& attempts, const Any& prior_same,
+                       const Any& prior_a, const Any& prior_b) {
+    return guarded([&] {
+        const auto c = convert::counts_of(document, successes, attempts);
+        const double odds = convert::number(prior_same, "prior_same").value_or(0.5);
+        return finite(bayes::same(c.groups(), prior_of(prior_a, prior_b), odds));
     });
 }
 
