@@ -140,7 +140,7 @@ TEST(Compare, ReferenceRows) {
         EXPECT_NEAR(got, want, tol) << r.name << " " << r.quantity << " " << r.source;
         ++checked[what];
     }
-    EXPECT_EQ(checked["post_ahead"], 6);
+    EXPECT_EQ(checked["post_ahead"], 8);
     EXPECT_EQ(checked["post_best"], 12);
     EXPECT_EQ(checked["post_loss"], 12);
     EXPECT_EQ(checked["post_same"], 12);

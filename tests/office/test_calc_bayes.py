@@ -63,7 +63,7 @@ class Posterior(SheetCase):
                                  "%s %s (%s)" % (row["case"], row["quantity"], row["source"]))
             checked += 1
             self.sheet.getCellRangeByName("A1:B10").clearContents(1 | 4 | 16)
-        self.assertEqual(checked, 42)
+        self.assertEqual(checked, 44)
 
     def test_order_array_beside_a_tally_with_a_blank_row(self):
         # Four ovens with a blank row between: the array is 4 x 4 over the filled rows.

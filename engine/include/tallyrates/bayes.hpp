@@ -16,9 +16,11 @@
 //   attempts (Gelman et al. 2013, 2.4): its upper tail summed by the ratio of
 //   successive terms, starting from a term computed in logs.
 // Comparisons of groups are one-dimensional integrals over a rate x:
-// - AHEAD: P(rate_1 > rate_2) = integral of f_1(x) F_2(x) dx, taken on the
-//   side that is the smaller probability so that small answers keep their
-//   relative accuracy; BEST: P(group i is best) = integral of
+// - AHEAD: P(rate_1 > rate_2), on the side that is the smaller probability so
+//   that small answers keep their relative accuracy: the finite sum of Cook
+//   (2005, technical report, UT MD Anderson Cancer Center) when the first
+//   Beta parameter is a whole number up to 300,000 (whole counts and a whole
+//   prior_a), else the integral of f_1(x) F_2(x) dx; BEST: P(group i is best) = integral of
 //   f_i(x) prod_{j != i} F_j(x) dx (1 - F_j for goal "low"); LOSS:
 //   E[max_j rate_j] - E[rate_i] with E[max] = integral of (1 - prod_j F_j(x)) dx.
 //   The integrand is kept in logs, integrated only where the mass is (between
