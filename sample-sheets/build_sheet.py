@@ -38,12 +38,13 @@ RESULTS = [
     ("Trend with belt speed, air ovens: p-value", "=RATES.TREND.P(%s)" % AIR, "0.0000"),
     ("Trend z, below 0: falls as belt speeds up", "=RATES.TREND.Z(%s)" % AIR, "0.00"),
     ("Pilot minus oven A, pass rate", "=RATES.DIFF(%s;4;1)" % COUNTS, "+0.0%;-0.0%"),
+    ("P(pilot's rate above oven A's), Bayesian", "=RATES.POST.AHEAD(%s;4;1)" % COUNTS, "0.00"),
 ]
 
 
 # Which ovens differ: every pair, 95 % Newcombe intervals, p adjusted by Holm
 # over all pairs. Seven rows of counts make 21 pairs: 22 rows with the header.
-PAIRS_TOP, PAIRS_ROWS = 40, 22
+PAIRS_TOP, PAIRS_ROWS = 41, 22
 
 
 def number_format(doc, code):
@@ -120,6 +121,12 @@ def main():
         for r in range(5, 12):
             cell("K%d" % r).setFormula('=IF(C%d>0;RATES.POST.ABOVE(%s;%d;$B$3);"")' % (r, COUNTS, r - 4))
             cell("K%d" % r).NumberFormat = number_format(doc, "0.00")
+        cell("L4").setString("P(best oven)")
+        cell("L4").CharWeight = 150
+        cell("L4").IsTextWrapped = True
+        for r in range(5, 12):
+            cell("L%d" % r).setFormula('=IF(C%d>0;RATES.POST.BEST(%s;%d);"")' % (r, COUNTS, r - 4))
+            cell("L%d" % r).NumberFormat = number_format(doc, "0.00")
         cell("H5:H11").setArrayFormula("RATES.SAME.RESID(%s)" % COUNTS)
         cell("H5:H11").NumberFormat = number_format(doc, "+0.00;-0.00")
         cell("I4").setString("error bar up")
@@ -132,17 +139,17 @@ def main():
             cell("B%d" % r).setFormula(formula)
             if fmt:
                 cell("B%d" % r).NumberFormat = number_format(doc, fmt)
-        cell("A24").setString("Report of the automatic test (array formula)")
-        cell("A24").CharWeight = 150
-        cell("A25:B35").setArrayFormula("RATES.SAME.REPORT(%s;;;;%s)" % (COUNTS, LABELS))
+        cell("A25").setString("Report of the automatic test (array formula)")
+        cell("A25").CharWeight = 150
+        cell("A26:B36").setArrayFormula("RATES.SAME.REPORT(%s;;;;%s)" % (COUNTS, LABELS))
         # Four significant decimals at most: no 15-digit values in the report.
-        cell("B25:B35").NumberFormat = number_format(doc, "#,##0.####")
-        cell("A25:A35").IsTextWrapped = True  # labels that name an oven are long
-        cell("A37").setString("Caution: a small p-value says the ovens' rates differ beyond chance; it is not "
+        cell("B26:B36").NumberFormat = number_format(doc, "#,##0.####")
+        cell("A26:A36").IsTextWrapped = True  # labels that name an oven are long
+        cell("A38").setString("Caution: a small p-value says the ovens' rates differ beyond chance; it is not "
                               "engineering acceptance. Follow the standards that apply and have decisions reviewed.")
-        cell("A39").setString("Which ovens differ? Every pair: difference of pass rates with its 95 % interval "
+        cell("A40").setString("Which ovens differ? Every pair: difference of pass rates with its 95 % interval "
                               "(Newcombe), p-value and p adjusted by Holm over all pairs (array formula)")
-        cell("A39").CharWeight = 150
+        cell("A40").CharWeight = 150
         bottom = PAIRS_TOP + PAIRS_ROWS - 1
         cell("A%d:G%d" % (PAIRS_TOP, bottom)).setArrayFormula("RATES.PAIRS(%s;;;;%s)" % (COUNTS, LABELS))
         cell("C%d:E%d" % (PAIRS_TOP + 1, bottom)).NumberFormat = number_format(doc, "+0.0%;-0.0%")
@@ -159,7 +166,7 @@ def main():
         cell("A14").VertJustify = 1
         sheet.Rows.getByIndex(13).OptimalHeight = True
         columns = sheet.Columns
-        for col, width in zip("ABCDEFGHIJK", [7800, 3600, 2600, 2400, 3800, 2400, 2600, 2800, 0, 0, 3000]):
+        for col, width in zip("ABCDEFGHIJKL", [7800, 3600, 2600, 2400, 3800, 2400, 2600, 2800, 0, 0, 3000, 2200]):
             columns.getByName(col).Width = width
         # The error-bar helper columns are for the chart only.
         for col in "IJ":
@@ -173,7 +180,7 @@ def main():
         style.ScaleToPagesY = 1
         # Pass rate by oven with its interval, for the eye.
         # To the right of the tally, clear of the report's long sentences.
-        at = cell("L4").Position
+        at = cell("M4").Position
         rect = Rectangle(at.X + 500, at.Y, 12000, 8500)
         # Every row that invites counts (5 to 11), so a new oven appears as it is typed.
         label_area = CellRangeAddress(0, 0, 3, 0, 10)  # A4:A11

@@ -32,12 +32,12 @@ def main():
         print()
         print("  %s %s" % (cell("A3").getString(), cell("B3").getString()))
         for r in range(4, 12):
-            row = [lo.cell_text(cell("%s%d" % (c, r))) for c in "ABCDEFGHK"]
+            row = [lo.cell_text(cell("%s%d" % (c, r))) for c in "ABCDEFGHKL"]
             if any(row):
-                print("  %-22s %15s %11s %10s %20s %9s %9s %23s %26s" % tuple(row))
+                print("  %-22s %15s %11s %10s %20s %9s %9s %23s %26s %13s" % tuple(row))
         print()
         errors = []
-        for r in list(range(14, 24)) + list(range(25, 36)):
+        for r in list(range(14, 25)) + list(range(26, 37)):
             label = cell("A%d" % r).getString()
             shown = lo.cell_text(cell("B%d" % r))
             if label:
@@ -45,13 +45,13 @@ def main():
             if shown.startswith("Err:"):
                 errors.append("B%d" % r)
         print()
-        print("  " + cell("A39").getString())
-        for r in range(40, 62):
+        print("  " + cell("A40").getString())
+        for r in range(41, 63):
             row = [lo.cell_text(cell("%s%d" % (c, r))) for c in "ABCDEFG"]
             if any(row):
                 print("  %-22s %-22s %17s %19s %20s %14s %16s" % tuple(row))
             errors += ["%s%d" % (c, r) for c, shown in zip("ABCDEFG", row) if shown.startswith("Err:")]
-        errors += ["%s%d" % (c, r) for c in "FGHK" for r in range(5, 12) if lo.cell_text(cell("%s%d" % (c, r))).startswith("Err:")]
+        errors += ["%s%d" % (c, r) for c in "FGHKL" for r in range(5, 12) if lo.cell_text(cell("%s%d" % (c, r))).startswith("Err:")]
         pdf = os.path.join(office.workdir, "reflow-oven-trial.pdf")
         lo.save_as(doc, pdf, "calc_pdf_Export")
         doc.close(True)
