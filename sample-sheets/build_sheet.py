@@ -47,6 +47,12 @@ RESULTS = [
 PAIRS_TOP, PAIRS_ROWS = 41, 22
 
 
+def heading(cell, text):
+    cell.setString(text)
+    cell.CharWeight = 150
+    cell.IsTextWrapped = True
+
+
 def number_format(doc, code):
     formats = doc.NumberFormats
     locale = doc.CharLocale
@@ -87,46 +93,35 @@ def main():
         cell("A2").setString("Invented example data. Type new counts in rows 5 to 11; rows left blank are skipped. "
                              "Needs the tallyrates extension.")
         for col, text in zip("ABCDE", ["Oven", "Boards passing", "Boards run", "Pass rate", "Belt speed (cm/min)"]):
-            cell(col + "4").setString(text)
-            cell(col + "4").CharWeight = 150
-            cell(col + "4").IsTextWrapped = True
+            heading(cell(col + "4"), text)
         for k, (name, x, n, speed) in enumerate(OVENS):
             r = 5 + k
             cell("A%d" % r).setString(name)
             cell("B%d" % r).setValue(x)
             cell("C%d" % r).setValue(n)
             cell("E%d" % r).setValue(speed)
-        for col, text in zip("FGH", ["95 % low", "95 % high", "Stands out? (residual)"]):
-            cell(col + "4").setString(text)
-            cell(col + "4").CharWeight = 150
-            cell(col + "4").IsTextWrapped = True
         percent = number_format(doc, "0.0%")
-        for r in range(5, 12):
-            cell("D%d" % r).setFormula('=IF(C%d>0;B%d/C%d;"")' % (r, r, r))
-            # The interval for this oven's pass rate (Wilson), blank until counts are typed.
-            for col, fn in (("F", "LOW"), ("G", "HIGH")):
-                cell("%s%d" % (col, r)).setFormula('=IF(C%d>0;RATES.ONE.%s(%s;%d);"")' % (r, fn, COUNTS, r - 4))
-            # Distances of the interval ends from the rate: the chart's error bars.
-            cell("I%d" % r).setFormula('=IF(C%d>0;G%d-D%d;"")' % (r, r, r))
-            cell("J%d" % r).setFormula('=IF(C%d>0;D%d-F%d;"")' % (r, r, r))
-            for col in "DFG":
-                cell("%s%d" % (col, r)).NumberFormat = percent
         # How sure each oven meets the plant's target (Bayesian, flat prior).
         cell("A3").setString("Plant target pass rate")
         cell("B3").setValue(0.95)
         cell("B3").NumberFormat = percent
-        cell("K4").setString("P(pass rate above target)")
-        cell("K4").CharWeight = 150
-        cell("K4").IsTextWrapped = True
+        # Per oven, beside its counts, blank until counts are typed ({i}: its position).
+        for col, text, fn, fmt in (
+                ("F", "95 % low", "RATES.ONE.LOW(%s;{i})" % COUNTS, percent),
+                ("G", "95 % high", "RATES.ONE.HIGH(%s;{i})" % COUNTS, percent),
+                ("K", "P(pass rate above target)", "RATES.POST.ABOVE(%s;{i};$B$3)" % COUNTS, "0.00"),
+                ("L", "P(best oven)", "RATES.POST.BEST(%s;{i})" % COUNTS, "0.00")):
+            heading(cell(col + "4"), text)
+            for r in range(5, 12):
+                cell("%s%d" % (col, r)).setFormula('=IF(C%d>0;%s;"")' % (r, fn.format(i=r - 4)))
+                cell("%s%d" % (col, r)).NumberFormat = fmt if isinstance(fmt, int) else number_format(doc, fmt)
+        heading(cell("H4"), "Stands out? (residual)")
         for r in range(5, 12):
-            cell("K%d" % r).setFormula('=IF(C%d>0;RATES.POST.ABOVE(%s;%d;$B$3);"")' % (r, COUNTS, r - 4))
-            cell("K%d" % r).NumberFormat = number_format(doc, "0.00")
-        cell("L4").setString("P(best oven)")
-        cell("L4").CharWeight = 150
-        cell("L4").IsTextWrapped = True
-        for r in range(5, 12):
-            cell("L%d" % r).setFormula('=IF(C%d>0;RATES.POST.BEST(%s;%d);"")' % (r, COUNTS, r - 4))
-            cell("L%d" % r).NumberFormat = number_format(doc, "0.00")
+            cell("D%d" % r).setFormula('=IF(C%d>0;B%d/C%d;"")' % (r, r, r))
+            cell("D%d" % r).NumberFormat = percent
+            # Distances of the interval ends from the rate: the chart's error bars.
+            cell("I%d" % r).setFormula('=IF(C%d>0;G%d-D%d;"")' % (r, r, r))
+            cell("J%d" % r).setFormula('=IF(C%d>0;D%d-F%d;"")' % (r, r, r))
         cell("H5:H11").setArrayFormula("RATES.SAME.RESID(%s)" % COUNTS)
         cell("H5:H11").NumberFormat = number_format(doc, "+0.00;-0.00")
         cell("I4").setString("error bar up")

@@ -70,20 +70,19 @@ void BM_cell_diff_low_score(benchmark::State& state) {
     o.how = pairwise::interval_method::score;
     for (auto _ : state) benchmark::DoNotOptimize(pairwise::difference_interval(c, 1, 12, o));
 }
-void BM_cell_pair_p_holm_exact(benchmark::State& state) {
+// A Holm-adjusted exact p for one pair: every pair's p of the family, or,
+// with a cache, a look-up after the first call.
+void cell_pair_p_holm_exact(benchmark::State& state, pairwise::p_cache* cache) {
     const auto c = twelve_lines();
     pairwise::test_options o;
     o.how = pairwise::test_method::exact;
     o.adjust = adjust::p_values::holm;
-    for (auto _ : state) benchmark::DoNotOptimize(pairwise::same_rate_p(c, 1, 12, o));
+    for (auto _ : state) benchmark::DoNotOptimize(pairwise::same_rate_p(c, 1, 12, o, cache));
 }
+void BM_cell_pair_p_holm_exact(benchmark::State& state) { cell_pair_p_holm_exact(state, nullptr); }
 void BM_cell_pair_p_holm_exact_cached(benchmark::State& state) {
-    const auto c = twelve_lines();
-    pairwise::test_options o;
-    o.how = pairwise::test_method::exact;
-    o.adjust = adjust::p_values::holm;
     pairwise::p_cache cache(8);
-    for (auto _ : state) benchmark::DoNotOptimize(pairwise::same_rate_p(c, 1, 12, o, &cache));
+    cell_pair_p_holm_exact(state, &cache);
 }
 void BM_cell_one_exact(benchmark::State& state) {
     for (auto _ : state) benchmark::DoNotOptimize(one_rate::bounds(987, 1200, 0.95, one_rate::method::exact));

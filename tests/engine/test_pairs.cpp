@@ -56,23 +56,23 @@ std::pair<std::string, bool> method_and_end(const std::string& quantity, std::si
 }  // namespace
 
 TEST(OneRate, NewcombePublishedExamples) {
-    // Newcombe 1998a, illustrative intervals at 95 % (checks.md).
-    const auto w = one_rate::bounds(81, 263, 0.95, one_rate::method::wilson);  // [S]
-    expect_4dp(w.low, 0.2553, "81/263 Wilson low");
-    expect_4dp(w.high, 0.3662, "81/263 Wilson high");
-    const auto cp = one_rate::bounds(81, 263, 0.95, one_rate::method::exact);  // [M]
-    expect_4dp(cp.low, 0.2527, "81/263 CP low");
-    expect_4dp(cp.high, 0.3676, "81/263 CP high");
-    const auto w0 = one_rate::bounds(0, 20, 0.95, one_rate::method::wilson);  // [M]
-    EXPECT_EQ(w0.low, 0.0);
-    expect_4dp(w0.high, 0.1611, "0/20 Wilson high");
-    expect_4dp(one_rate::bounds(0, 20, 0.95, one_rate::method::exact).high, 0.1684, "0/20 CP high");  // [M]
-    const auto w1 = one_rate::bounds(1, 29, 0.95, one_rate::method::wilson);                        // [M]
-    expect_4dp(w1.low, 0.0061, "1/29 Wilson low");
-    expect_4dp(w1.high, 0.1718, "1/29 Wilson high");
-    const auto w15 = one_rate::bounds(15, 148, 0.95, one_rate::method::wilson);  // [M]
-    expect_4dp(w15.low, 0.0624, "15/148 Wilson low");
-    expect_4dp(w15.high, 0.1605, "15/148 Wilson high");
+    // Newcombe 1998a, illustrative intervals at 95 % (checks.md marks in the last column).
+    using m = one_rate::method;
+    struct example {
+        std::int64_t x, n;
+        m how;
+        double low, high;
+        const char* mark;
+    };
+    const example examples[] = {{81, 263, m::wilson, 0.2553, 0.3662, "[S]"}, {81, 263, m::exact, 0.2527, 0.3676, "[M]"},
+                                {0, 20, m::wilson, 0.0, 0.1611, "[M]"},      {0, 20, m::exact, 0.0, 0.1684, "[M]"},
+                                {1, 29, m::wilson, 0.0061, 0.1718, "[M]"},   {15, 148, m::wilson, 0.0624, 0.1605, "[M]"}};
+    for (const auto& e : examples) {
+        const auto b = one_rate::bounds(e.x, e.n, 0.95, e.how);
+        expect_4dp(b.low, e.low, e.mark);
+        expect_4dp(b.high, e.high, e.mark);
+    }
+    EXPECT_EQ(one_rate::bounds(0, 20, 0.95, m::wilson).low, 0.0);
 }
 
 TEST(OneRate, ReferenceRows) {
