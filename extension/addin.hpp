@@ -83,6 +83,12 @@ public:
     double SAL_CALL postSame(const caller& document, const cells& successes, const cells& attempts,
                              const Any& prior_same, const Any& prior_a, const Any& prior_b) override;
 
+    array SAL_CALL postCurve(const caller& document, const cells& successes, const cells& attempts,
+                             const Any& points, const Any& prior_a, const Any& prior_b) override;
+    array SAL_CALL postTable(const caller& document, const cells& successes, const cells& attempts,
+                             const Any& level, const Any& goal, const Any& prior_a, const Any& prior_b,
+                             const Any& labels) override;
+
     // ---- XAddIn, XServiceName, XServiceInfo (addin.cpp) ----
     OUString SAL_CALL getProgrammaticFuntionName(const OUString& display) override;
     OUString SAL_CALL getDisplayFunctionName(const OUString& name) override;

@@ -279,6 +279,13 @@ range along_the_counts(const std::vector<std::optional<double>>& values, bool do
     return out;
 }
 
+range rows_to_array(const std::vector<std::vector<Any>>& rows) {
+    range out(static_cast<sal_Int32>(rows.size()));
+    for (std::size_t r = 0; r < rows.size(); ++r)
+        out.getArray()[r] = css::uno::Sequence<Any>(rows[r].data(), static_cast<sal_Int32>(rows[r].size()));
+    return out;
+}
+
 range to_array(const std::vector<report_row>& rows) {
     range out(static_cast<sal_Int32>(rows.size()));
     auto* o = out.getArray();

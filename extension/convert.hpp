@@ -69,6 +69,9 @@ counts counts_of(const caller& document, const cells& successes, const cells& at
 // count ranges: a column for counts in a column, a row for counts in a row.
 range along_the_counts(const std::vector<std::optional<double>>& values, bool down);
 
+// Rows of cells (all of one length) as an array result.
+range rows_to_array(const std::vector<std::vector<css::uno::Any>>& rows);
+
 // Label/value rows (RATES.SAME.REPORT) as a two-column array result.
 range to_array(const std::vector<report_row>& rows);
 

@@ -6,6 +6,7 @@
 #include <boost/math/special_functions/beta.hpp>
 #include <boost/math/special_functions/gamma.hpp>
 #include <boost/math/quadrature/gauss_kronrod.hpp>
+#include <boost/math/quadrature/tanh_sinh.hpp>
 #include <boost/math/tools/minima.hpp>
 #include <boost/math/tools/roots.hpp>
 #include <cmath>
@@ -149,8 +150,15 @@ constexpr unsigned quad_depth = 12;
 // Boost's beta density is accurate for large parameters (no log-gamma
 // differences); it underflows only far in the tails, where it does not count.
 double log_density(const beta_law& law, double x) {
-    const double d = boost::math::ibeta_derivative(law.a, law.b, x);
-    return d > 0 ? std::log(d) : -HUGE_VAL;
+    try {
+        const double d = boost::math::ibeta_derivative(law.a, law.b, x);
+        return d > 0 ? std::log(d) : -HUGE_VAL;
+    } catch (const std::overflow_error&) {
+        // Next to an end where the density is infinite (a or b below 1): in
+        // logs, where the parameters are small and log-gamma is exact enough.
+        return (law.a - 1) * std::log(x) + (law.b - 1) * std::log1p(-x) -
+               (boost::math::lgamma(law.a) + boost::math::lgamma(law.b) - boost::math::lgamma(law.a + law.b));
+    }
 }
 
 // log B(a, b) by log-gamma: its absolute error grows like eps * a log a (about
@@ -225,6 +233,44 @@ double tail_point(const beta_law& law, double tail, bool upper) {
     }
 }
 
+// The same integral when the integrand is infinite at an end of [lo, hi] (a
+// law with a parameter below 1 next to 0 or 1): tanh-sinh quadrature
+// (Boost.Math), which is made for such ends, scaled by the largest value met
+// on a grid inside. g takes the point t and its distance 1 - t, which
+// tanh-sinh hands over exactly near an end at 1 (where 1 - t itself would
+// have lost its digits).
+template <class G>
+double log_integral_singular(G g, double lo, double hi) {
+    double g_ref = -HUGE_VAL;
+    for (int k = 1; k < 64; ++k) {
+        const double t = lo + (hi - lo) * k / 64.0;
+        g_ref = std::max(g_ref, g(t, 1 - t));
+    }
+    if (!std::isfinite(g_ref)) return -HUGE_VAL;
+    auto f = [&](double t, double tc) {
+        // tc: distance to the nearer end, negative on the lower side.
+        const double one_minus_t = (tc > 0 && hi == 1.0) ? tc : 1 - t;
+        const double v = g(t, one_minus_t) - g_ref;
+        return std::isfinite(v) ? std::exp(v) : 0.0;
+    };
+    boost::math::quadrature::tanh_sinh<double> integrator(15);
+    double error = 0.0;
+    const double total = integrator.integrate(f, lo, hi, 1e-12, &error);
+    if (error > 1e-8 * total && error * std::exp(g_ref) > 1e-11)
+        throw no_convergence("A posterior probability's integral did not reach its accuracy (relative error "
+                             "estimate " + format_short(error / total) + ").");
+    return g_ref + std::log(total);
+}
+
+// log density from t and 1 - t given apart, for a law with a parameter below
+// 1 (small parameters: log-gamma is exact enough for its constant).
+double log_density_ends(const beta_law& law, double t, double one_minus_t) {
+    return (law.a - 1) * std::log(t) + (law.b - 1) * std::log(one_minus_t) -
+           (boost::math::lgamma(law.a) + boost::math::lgamma(law.b) - boost::math::lgamma(law.a + law.b));
+}
+
+bool singular_ends(const beta_law& law) { return law.a < 1 || law.b < 1; }
+
 // The window where law's mass lies.
 std::pair<double, double> window(const beta_law& law) {
     return {tail_point(law, window_tail, false), tail_point(law, window_tail, true)};
@@ -233,6 +279,9 @@ std::pair<double, double> window(const beta_law& law) {
 // P(X > Y) directly: the integral of f_X(x) F_Y(x) over X's window.
 double ahead_direct(const beta_law& x, const beta_law& y) {
     const auto [lo, hi] = window(x);
+    if (singular_ends(x))
+        return std::exp(log_integral_singular(
+            [&](double t, double u) { return log_density_ends(x, t, u) + log_cdf(y, t, false); }, lo, hi));
     return std::exp(log_integral([&](double t) { return log_density(x, t) + log_cdf(y, t, false); }, lo, hi));
 }
 
@@ -287,43 +336,55 @@ double ahead(const beta_law& x, const beta_law& y) {
 double best(std::span<const beta_law> laws, std::size_t i, goal g) {
     const bool low = g == goal::low;
     const auto [lo, hi] = window(laws[i]);
-    auto integrand = [&](double t) {
-        double v = log_density(laws[i], t);
+    auto others = [&](double t) {
+        double v = 0.0;
         for (std::size_t j = 0; j < laws.size() && std::isfinite(v); ++j)
             if (j != i) v += log_cdf(laws[j], t, low);
         return v;
     };
-    return std::clamp(std::exp(log_integral(integrand, lo, hi)), 0.0, 1.0);
+    const double log_p =
+        singular_ends(laws[i])
+            ? log_integral_singular([&](double t, double u) { return log_density_ends(laws[i], t, u) + others(t); },
+                                    lo, hi)
+            : log_integral([&](double t) { return log_density(laws[i], t) + others(t); }, lo, hi);
+    return std::clamp(std::exp(log_p), 0.0, 1.0);
 }
 
 double loss(std::span<const beta_law> laws, std::size_t i, goal g) {
     // E[max] = integral over [0, 1] of (1 - prod F_j); below every window the
     // product is 0 (integrand 1), above every window it is 1 (integrand 0).
-    // For goal low, E[min] = integral of prod (1 - F_j).
-    double from = 1.0, to = 0.0;
+    // For goal low, E[min] = integral of prod (1 - F_j). The integrand has
+    // square-root corners where a law with a parameter below 1 meets 0 or 1,
+    // so the pieces between the laws' means go to tanh-sinh quadrature
+    // (Boost.Math), which takes such ends in its stride.
+    std::vector<double> cuts{1.0, 0.0};
     for (const auto& law : laws) {
         const auto [lo, hi] = window(law);
-        from = std::min(from, lo);
-        to = std::max(to, hi);
+        cuts[0] = std::min(cuts[0], lo);
+        cuts[1] = std::max(cuts[1], hi);
+        cuts.push_back(mean(law));
     }
-    auto log_product = [&](double t, bool upper) {
+    const double from = cuts[0];
+    std::sort(cuts.begin(), cuts.end());
+    cuts.erase(std::unique(cuts.begin(), cuts.end()), cuts.end());
+    const bool high = g == goal::high;
+    auto f = [&](double t) {
         double v = 0.0;
-        for (const auto& law : laws) v += log_cdf(law, t, upper);
-        return v;
+        for (const auto& law : laws) v += log_cdf(law, t, !high);
+        return high ? -std::expm1(v) : std::exp(v);
     };
-    double error = 0.0;
-    double expected_best = 0.0;
-    if (g == goal::high) {
-        auto f = [&](double t) { return -std::expm1(log_product(t, false)); };
-        expected_best = from + boost::math::quadrature::gauss_kronrod<double, 61>::integrate(f, from, to, quad_depth, quad_tolerance, &error);
-    } else {
-        auto f = [&](double t) { return std::exp(log_product(t, true)); };
-        expected_best = from + boost::math::quadrature::gauss_kronrod<double, 61>::integrate(f, from, to, quad_depth, quad_tolerance, &error);
+    boost::math::quadrature::tanh_sinh<double> integrator(12);
+    double expected_best = from, error = 0.0;
+    for (std::size_t k = 0; k + 1 < cuts.size(); ++k) {
+        if (cuts[k] < from || !(cuts[k + 1] > cuts[k])) continue;
+        double piece_error = 0.0;
+        expected_best += integrator.integrate(f, cuts[k], cuts[k + 1], 1e-12, &piece_error);
+        error += piece_error;
     }
     if (error > 1e-10)
         throw no_convergence("The expected loss's integral did not reach its accuracy (error estimate " +
                              format_short(error) + ").");
-    const double shortfall = g == goal::high ? expected_best - mean(laws[i]) : mean(laws[i]) - expected_best;
+    const double shortfall = high ? expected_best - mean(laws[i]) : mean(laws[i]) - expected_best;
     return std::max(0.0, shortfall);
 }
 
@@ -354,6 +415,35 @@ std::vector<beta_law> posteriors(const counts& c, prior p) {
     for (const auto& g : c.groups())
         out.push_back({p.a + static_cast<double>(g.successes), p.b + static_cast<double>(g.attempts - g.successes)});
     return out;
+}
+
+std::optional<double> density(const beta_law& law, double x) {
+    if ((x <= 0 && law.a < 1) || (x >= 1 && law.b < 1)) return std::nullopt;
+    return boost::math::ibeta_derivative(law.a, law.b, x);
+}
+
+std::vector<std::vector<std::optional<double>>> curves(const counts& c, std::int64_t points, prior p) {
+    if (points < 2 || points > 10001)
+        throw invalid_input("The argument points (" + std::to_string(points) +
+                            ") must be a whole number from 2 to 10001: the rates drawn from 0 to 1.");
+    const auto laws = posteriors(c, p);
+    std::vector<std::vector<std::optional<double>>> rows;
+    for (std::int64_t k = 0; k < points; ++k) {
+        const double x = static_cast<double>(k) / static_cast<double>(points - 1);
+        std::vector<std::optional<double>> row{x};
+        for (const auto& law : laws) row.push_back(density(law, x));
+        rows.push_back(std::move(row));
+    }
+    return rows;
+}
+
+std::vector<summary_row> summary(const counts& c, double level, goal g, prior p) {
+    const auto laws = posteriors(c, p);
+    std::vector<summary_row> rows;
+    for (std::size_t k = 0; k < laws.size(); ++k)
+        rows.push_back({c.groups()[k].position, mean(laws[k]), credible(laws[k], level, kind::central),
+                        best(laws, k, g), loss(laws, k, g)});
+    return rows;
 }
 
 }  // namespace tallyrates::bayes

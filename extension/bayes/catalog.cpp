@@ -48,6 +48,12 @@ constexpr argument prior_same{
     "prior_same",
     "How likely you thought, before these counts, that every group shares one rate: between 0 and 1.", "0.5"};
 constexpr std::array same_args{successes, attempts, prior_same, prior_a, prior_b};
+constexpr std::array curve_args{
+    successes, attempts,
+    argument{"points", "How many rates from 0 % to 100 % the curves are drawn at (2 to 10001; 101 is every percent).",
+             "101"},
+    prior_a, prior_b};
+constexpr std::array table_args{successes, attempts, credible_level, shared::goal, prior_a, prior_b, shared::labels};
 
 constexpr std::array table{
     function{"postMean", "RATES.POST.MEAN",
@@ -94,6 +100,17 @@ constexpr std::array table{
              "It leans towards \"one rate\" when differences are small, more than a p-value does, and depends "
              "on the prior: read it beside RATES.SAME.P." WHY_502_POST,
              same_args},
+    function{"postCurve", "RATES.POST.CURVE",
+             "Array for a chart of what each group's rate may be: a header row, then one row per rate from 0 to 1 "
+             "with the posterior density of every filled row of the tally beside it (a column per group). Enter "
+             "as an array formula points + 1 rows by G + 1 columns; chart it as lines (x: the first column)."
+             WHY_502_POST,
+             curve_args, true},
+    function{"postTable", "RATES.POST.TABLE",
+             "Array with a header row, then one row per group: its name or position, expected rate, credible "
+             "interval low and high (central), probability of being the best, and expected loss of choosing it. "
+             "Enter as an array formula 6 columns wide and G + 1 rows high." WHY_502_POST,
+             table_args, true},
 };
 
 #undef WHY_502_POST

@@ -5,6 +5,7 @@
 #include "../guard.hpp"
 #include "keywords.hpp"
 #include "tallyrates/bayes.hpp"
+#include "tallyrates/text.hpp"
 
 namespace tallyrates::uno {
 
@@ -125,6 +126,41 @@ double rates::postSame(const caller& document, const cells& successes, const cel
         const auto c = convert::counts_of(document, successes, attempts);
         const double odds = convert::number(prior_same, "prior_same").value_or(0.5);
         return finite(bayes::same(c.groups(), prior_of(prior_a, prior_b), odds));
+    });
+}
+
+array rates::postCurve(const caller& document, const cells& successes, const cells& attempts, const Any& points,
+                       const Any& prior_a, const Any& prior_b) {
+    return guarded([&] {
+        const auto c = convert::counts_of(document, successes, attempts);
+        const auto n = arguments::whole_or(convert::number(points, "points"), 101, 2, 10001, "points");
+        std::vector<std::vector<Any>> rows{{Any(ou("rate"))}};
+        for (const auto& g : c.groups()) rows[0].push_back(Any(ou("position " + std::to_string(g.position))));
+        for (const auto& values : bayes::curves(c, n, prior_of(prior_a, prior_b))) {
+            rows.emplace_back();
+            for (const auto& v : values) rows.back().push_back(v ? Any(finite(*v)) : Any(OUString()));
+        }
+        return convert::rows_to_array(rows);
+    });
+}
+
+array rates::postTable(const caller& document, const cells& successes, const cells& attempts, const Any& level,
+                       const Any& goal, const Any& prior_a, const Any& prior_b, const Any& labels) {
+    return guarded([&] {
+        const auto names = convert::optional_texts(labels, "labels");
+        const auto c = convert::counts_of(document, successes, attempts, names);
+        const double lv = convert::number(level, "level").value_or(0.95);
+        const std::string pct = format_short(lv * 100) + " %";
+        std::vector<std::vector<Any>> rows{{Any(ou("group")), Any(ou("expected rate")), Any(ou("low (" + pct + ")")),
+                                            Any(ou("high (" + pct + ")")), Any(ou("P(best)")),
+                                            Any(ou("expected loss"))}};
+        for (const auto& r : bayes::summary(c, lv, goal_of(goal), prior_of(prior_a, prior_b))) {
+            const std::string label = c.label_of(r.position);
+            rows.push_back({label.empty() ? Any(static_cast<double>(r.position)) : Any(ou(label)), Any(finite(r.mean)),
+                            Any(finite(r.bounds.low)), Any(finite(r.bounds.high)), Any(finite(r.best)),
+                            Any(finite(r.loss))});
+        }
+        return convert::rows_to_array(rows);
     });
 }
 

@@ -51,7 +51,12 @@ TEST(Posterior, ReferenceRows) {
         else if (what == "post_hpd_low") expect_close(bayes::credible(law, 0.95, bayes::kind::hpd).low, r.value, r);
         else if (what == "post_hpd_high") expect_close(bayes::credible(law, 0.95, bayes::kind::hpd).high, r.value, r);
         else if (what == "post_above") expect_close(bayes::above(law, std::stod(f[3]), bayes::goal::high), r.value, r);
-        else if (what == "post_next")
+        else if (what == "post_density") {
+            const auto d = bayes::density(law, std::stod(f[3]));
+            ASSERT_TRUE(d.has_value()) << r.quantity;
+            // The density is a value, not a probability: relative 1e-10 (Boost's ibeta_derivative).
+            EXPECT_NEAR(*d, r.value, 1e-10 * std::fabs(r.value) + 1e-300) << r.name << " " << r.quantity;
+        } else if (what == "post_next")
             expect_close(bayes::next_at_least(law, std::stoll(f[3]), std::stoll(f[4])), r.value, r);
         else ADD_FAILURE() << "unknown quantity " << r.quantity;
         ++checked[what];
@@ -60,6 +65,7 @@ TEST(Posterior, ReferenceRows) {
     EXPECT_EQ(checked["post_hpd_low"], 7);
     EXPECT_EQ(checked["post_above"], 11);
     EXPECT_EQ(checked["post_next"], 8);
+    EXPECT_GE(checked["post_density"], 35);
 }
 
 TEST(Posterior, GoalLowIsTheOtherSide) {
@@ -141,8 +147,8 @@ TEST(Compare, ReferenceRows) {
         ++checked[what];
     }
     EXPECT_EQ(checked["post_ahead"], 8);
-    EXPECT_EQ(checked["post_best"], 12);
-    EXPECT_EQ(checked["post_loss"], 12);
+    EXPECT_EQ(checked["post_best"], 15);
+    EXPECT_EQ(checked["post_loss"], 15);
     EXPECT_EQ(checked["post_same"], 12);
 }
 
@@ -161,4 +167,31 @@ TEST(Compare, IdentitiesHold) {
         EXPECT_NEAR(bayes::loss(mirrored, i, bayes::goal::low), bayes::loss(laws, i, bayes::goal::high), 1e-10);
     }
     EXPECT_THROW(bayes::same(std::vector<group>{{1, 3, 10}, {2, 4, 10}}, {}, 1.0), invalid_input);
+}
+
+TEST(Compare, TableAndCurvesAreTheSingleCellAnswers) {
+    // RATES.POST.TABLE rows equal RATES.POST.MEAN/LOW/HIGH/BEST/LOSS (the same
+    // calls); RATES.POST.CURVE's columns are the densities, blank where infinite.
+    const auto c = counts::from_entries(
+        std::vector{entry::number(286), entry::blank(), entry::number(14), entry::number(0)},
+        std::vector{entry::number(300), entry::blank(), entry::number(14), entry::number(0)});
+    const bayes::prior p{0.5, 0.5};
+    const auto rows = bayes::summary(c, 0.9, bayes::goal::high, p);
+    ASSERT_EQ(rows.size(), 3u);
+    const auto laws = bayes::posteriors(c, p);
+    for (std::size_t k = 0; k < rows.size(); ++k) {
+        const auto law = bayes::posterior(c, static_cast<double>(rows[k].position), p);
+        EXPECT_EQ(rows[k].mean, bayes::mean(law));
+        EXPECT_EQ(rows[k].bounds.low, bayes::credible(law, 0.9, bayes::kind::central).low);
+        EXPECT_EQ(rows[k].best, bayes::best(laws, k, bayes::goal::high));
+        EXPECT_EQ(rows[k].loss, bayes::loss(laws, k, bayes::goal::high));
+    }
+    EXPECT_EQ(rows[2].position, 4u);
+    const auto curve = bayes::curves(c, 11, p);
+    ASSERT_EQ(curve.size(), 11u);
+    ASSERT_EQ(curve[0].size(), 4u);
+    EXPECT_EQ(*curve[10][0], 1.0);
+    EXPECT_FALSE(curve[0][3].has_value());   // Beta(0.5, 0.5) at 0: infinite
+    EXPECT_FALSE(curve[10][2].has_value());  // Beta(14.5, 0.5) at 1: infinite
+    EXPECT_THROW(bayes::curves(c, 1, p), invalid_input);
 }

@@ -56,7 +56,7 @@ class Posterior(SheetCase):
         self.assertEqual(self.check_rows(FORMULA, 1e-8), 54)
 
     def test_comparisons_of_groups(self):
-        self.assertEqual(self.check_rows(COMPARE, 1e-7), 44)
+        self.assertEqual(self.check_rows(COMPARE, 1e-7), 50)
 
     def test_order_array_beside_a_tally_with_a_blank_row(self):
         # Four ovens with a blank row between: the array is 4 x 4 over the filled rows.
@@ -72,6 +72,33 @@ class Posterior(SheetCase):
         # c_ovens, post_ahead 1 over 2: Cook (2005)'s sum in 30-digit mpmath (omnibus.csv).
         self.assertAlmostEqual(cell("E1").getValue(), 0.8376146424373224, delta=1e-10)
         self.assertAlmostEqual(cell("E1").getValue() + cell("D2").getValue(), 1.0, delta=1e-12)
+
+    def test_table_and_curves_beside_a_tally(self):
+        # Three ovens and a spare row; the table names them from the labels.
+        r = self.put_counts([286, 271, 233, None], [300, 290, 260, None])
+        for k, name in enumerate(["Oven A", "Oven B", "Oven C"]):
+            self.sheet.getCellRangeByName("C%d" % (k + 1)).setString(name)
+        self.sheet.getCellRangeByName("E1:J4").setArrayFormula("RATES.POST.TABLE(%s;0.9;;;;C1:C4)" % r)
+        self.doc.calculateAll()
+        cell = lambda a: self.sheet.getCellRangeByName(a)
+        self.assertEqual([cell(c + "1").getString() for c in "EFGHIJ"],
+                         ["group", "expected rate", "low (90 %)", "high (90 %)", "P(best)", "expected loss"])
+        self.assertEqual(cell("E3").getString(), "Oven B")
+        for col, text in (("F", "=RATES.POST.MEAN(%s;2)"), ("G", '=RATES.POST.LOW(%s;2;0.9)'),
+                          ("H", "=RATES.POST.HIGH(%s;2;0.9)"), ("I", "=RATES.POST.BEST(%s;2)"),
+                          ("J", "=RATES.POST.LOSS(%s;2)")):
+            self.formula("L1", text % r)
+            self.assertEqual(cell(col + "3").getValue(), self.value_of("L1"), col)
+        # The curves: a header row, 11 rates from 0 to 1, a density column per oven.
+        self.sheet.getCellRangeByName("N1:Q12").setArrayFormula("RATES.POST.CURVE(%s;11)" % r)
+        self.doc.calculateAll()
+        self.assertEqual(cell("O1").getString(), "position 1")
+        self.assertAlmostEqual(cell("N11").getValue(), 0.9, places=15)
+        # Beta(287, 15) density at 0.9 (30-digit mpmath would agree; here the
+        # definition through scipy-free arithmetic: lgamma).
+        import math
+        want = math.exp(286 * math.log(0.9) + 14 * math.log(0.1) - (math.lgamma(287) + math.lgamma(15) - math.lgamma(302)))
+        self.assertAlmostEqual(cell("O11").getValue() / want, 1.0, places=9)
 
     def test_defaults_goal_low_and_a_group_without_attempts(self):
         r = self.put_counts([14, 0, None], [14, 0, None])

@@ -458,6 +458,13 @@ def posterior_rows(w):
         for r in ABOVE_RATES[name]:
             p = mp_sf(a, b, mpmath.mpf(r))
             row(w, name, [x], [n], "post_above" + tag + "|" + fmt(r), float(p), source)
+        for t in ("0", "0.01", "0.5", "0.9", "0.999", "1"):
+            x_t = mpmath.mpf(t)
+            if (x_t == 0 and a < 1) or (x_t == 1 and b < 1):
+                continue  # infinite there
+            d = mpmath.mpf(0) if (x_t == 0 and a > 1) or (x_t == 1 and b > 1) else (
+                x_t ** (a - 1) * (1 - x_t) ** (b - 1) / mpmath.beta(a, b))
+            row(w, name, [x], [n], "post_density" + tag + "|" + t, float(d), source)
         for m, k in NEXT_CASES.get(name, []):
             p = mp_next(a, b, m, k)
             sp = scipy.stats.betabinom.sf(k - 1, m, float(a), float(b))
@@ -563,6 +570,17 @@ def comparison_rows(w):
                 a, b = laws[i]
                 row(w, name, x, n, "post_loss|1|1|%d" % (i + 1), float(e_max - a / (a + b)),
                     source + ": quad of 1 - prod F_j")
+        if name == "c_ovens":
+            # Jeffreys' prior with a fifth oven not yet run: its posterior is the
+            # U-shaped prior itself, infinite at 0 and 1.
+            jx, jn = x[:2] + [0], n[:2] + [0]
+            jl = [(mpmath.mpf("0.5") + xi, mpmath.mpf("0.5") + ni - xi) for xi, ni in zip(jx, jn)]
+            e_max = mp_expected_max(jl)
+            for i in range(3):
+                row(w, "c_new_oven", jx, jn, "post_best|0.5|0.5|%d" % (i + 1), float(mp_best(jl, i)),
+                    source + ": quad of f_i prod F_j")
+                row(w, "c_new_oven", jx, jn, "post_loss|0.5|0.5|%d" % (i + 1),
+                    float(e_max - jl[i][0] / (jl[i][0] + jl[i][1])), source + ": quad of 1 - prod F_j")
         for prior_same in ("0.5", "0.9"):
             row(w, name, x, n, "post_same|1|1|" + prior_same, float(mp_same(x, n, 1, 1, mpmath.mpf(prior_same))),
                 source + ": marginal likelihoods by loggamma")

@@ -35,6 +35,7 @@
 #pragma once
 
 #include <cstdint>
+#include <optional>
 #include <span>
 #include <vector>
 
@@ -79,5 +80,22 @@ double same(std::span<const group> groups, prior p, double prior_same);
 
 // The posteriors of every non-blank group of the tally, in range order.
 std::vector<beta_law> posteriors(const counts& c, prior p);
+
+// Posterior density at x in [0, 1]; none where it is infinite (x = 0 with
+// a < 1, x = 1 with b < 1).
+std::optional<double> density(const beta_law& law, double x);
+
+// RATES.POST.CURVE: `points` rates evenly from 0 to 1 (2 to 10,001), and at
+// each the density of every non-blank group: rows of {rate, d_1, ..., d_G}.
+std::vector<std::vector<std::optional<double>>> curves(const counts& c, std::int64_t points, prior p);
+
+// RATES.POST.TABLE: per non-blank group, what the single-cell functions give.
+struct summary_row {
+    std::size_t position = 0;
+    double mean = 0;
+    interval bounds;  // central, at `level`
+    double best = 0, loss = 0;
+};
+std::vector<summary_row> summary(const counts& c, double level, goal g, prior p);
 
 }  // namespace tallyrates::bayes
