@@ -84,7 +84,7 @@ public:
                              const Any& prior_same, const Any& prior_a, const Any& prior_b) override;
 
     array SAL_CALL postCurve(const caller& document, const cells& successes, const cells& attempts,
-                             const Any& points, const Any& prior_a, const Any& prior_b) override;
+                             const Any& points, const Any& prior_a, const Any& prior_b, const Any& labels) override;
     array SAL_CALL postTable(const caller& document, const cells& successes, const cells& attempts,
                              const Any& level, const Any& goal, const Any& prior_a, const Any& prior_b,
                              const Any& labels) override;

@@ -80,6 +80,49 @@ def add_interval_bars(office, chart, sheet_name):
     series.ErrorBarY = bars
 
 
+CURVE_TOP, CURVE_POINTS = 31, 401  # the curve block: a header row, then 401 rates from 0 to 1
+
+
+def add_curves_sheet(doc):
+    """A second sheet: each oven's posterior density (RATES.POST.CURVE) as an
+    XY line chart, how far the counts pin each pass rate down. Only the chart
+    prints; the data block sits below it."""
+    doc.Sheets.insertNewByName("Posterior curves", 1)
+    sheet = doc.Sheets.getByName("Posterior curves")
+    cell = sheet.getCellRangeByName
+    cell("A1").setString("What each oven's pass rate may be, given its counts (Bayesian, flat prior)")
+    cell("A1").CharWeight = 150
+    cell("A2").setString("The taller and narrower a curve, the better the counts pin the rate down: the pilot's "
+                         "14 of 14 still leaves a wide spread, down to about 80 %.")
+    bottom = CURVE_TOP + CURVE_POINTS
+    block = "A%d:E%d" % (CURVE_TOP, bottom)
+    cell(block).setArrayFormula("RATES.POST.CURVE($'Oven trial'.B5:B8;$'Oven trial'.C5:C8;%d;;;$'Oven trial'.A5:A8)"
+                                % CURVE_POINTS)
+    cell("A%d" % (CURVE_TOP - 1)).setString("Data for the chart (array formula; its header row names the ovens):")
+    at = cell("A4").Position
+    rect = Rectangle(at.X, at.Y, 24000, 11000)
+    data = CellRangeAddress(1, 0, CURVE_TOP - 1, 4, bottom - 1)  # A..E, header row (legend) to the last rate
+    sheet.Charts.addNewByName("PosteriorCurves", rect, (data,), True, False)
+    chart = sheet.Charts.getByName("PosteriorCurves").EmbeddedObject
+    chart.Diagram = chart.createInstance("com.sun.star.chart.XYDiagram")
+    chart.HasMainTitle = True
+    chart.Title.String = "Posterior density of each oven's pass rate"
+    chart.HasLegend = True
+    chart.Diagram.HasXAxisTitle = True
+    chart.Diagram.XAxisTitle.String = "Pass rate"
+    chart.Diagram.HasYAxisTitle = True
+    chart.Diagram.YAxisTitle.String = "Density"
+    x_axis = chart.Diagram.XAxis
+    x_axis.AutoMin, x_axis.AutoMax = False, False
+    x_axis.Min, x_axis.Max = 0.75, 1.0
+    for k in range(5):  # the x column counts as a data row in an XY diagram
+        series = chart.Diagram.getDataRowProperties(k)
+        series.SymbolType = -3  # com.sun.star.chart.ChartSymbolType.NONE: lines only
+    # Print the chart, not the 400 rows of data.
+    from com.sun.star.table import CellRangeAddress as Area
+    sheet.setPrintAreas((Area(1, 0, 0, 12, 26),))
+
+
 def main():
     office = lo.Office(sys.argv[1]).install().start()
     try:
@@ -193,6 +236,7 @@ def main():
         y_axis = chart.Diagram.YAxis
         y_axis.AutoMin, y_axis.AutoMax = False, False
         y_axis.Min, y_axis.Max = 0.5, 1.0
+        add_curves_sheet(doc)
         doc.calculateAll()
         out = os.path.join(office.workdir, "reflow-oven-trial.fods")
         lo.save_as(doc, out, "OpenDocument Spreadsheet Flat XML")

@@ -52,7 +52,7 @@ constexpr std::array curve_args{
     successes, attempts,
     argument{"points", "How many rates from 0 % to 100 % the curves are drawn at (2 to 10001; 101 is every percent).",
              "101"},
-    prior_a, prior_b};
+    prior_a, prior_b, shared::labels};
 constexpr std::array table_args{successes, attempts, credible_level, shared::goal, prior_a, prior_b, shared::labels};
 
 constexpr std::array table{
@@ -101,8 +101,9 @@ constexpr std::array table{
              "on the prior: read it beside RATES.SAME.P." WHY_502_POST,
              same_args},
     function{"postCurve", "RATES.POST.CURVE",
-             "Array for a chart of what each group's rate may be: a header row, then one row per rate from 0 to 1 "
-             "with the posterior density of every filled row of the tally beside it (a column per group). Enter "
+             "Array for a chart of what each group's rate may be: a header row (the labels, for the chart's "
+             "legend), then one row per rate from 0 to 1 with the posterior density of every filled row of the "
+             "tally beside it (a column per group). Enter "
              "as an array formula points + 1 rows by G + 1 columns; chart it as lines (x: the first column)."
              WHY_502_POST,
              curve_args, true},

@@ -130,12 +130,17 @@ double rates::postSame(const caller& document, const cells& successes, const cel
 }
 
 array rates::postCurve(const caller& document, const cells& successes, const cells& attempts, const Any& points,
-                       const Any& prior_a, const Any& prior_b) {
+                       const Any& prior_a, const Any& prior_b, const Any& labels) {
     return guarded([&] {
-        const auto c = convert::counts_of(document, successes, attempts);
+        const auto names = convert::optional_texts(labels, "labels");
+        const auto c = convert::counts_of(document, successes, attempts, names);
         const auto n = arguments::whole_or(convert::number(points, "points"), 101, 2, 10001, "points");
+        // The header names each column: a chart takes its legend from it.
         std::vector<std::vector<Any>> rows{{Any(ou("rate"))}};
-        for (const auto& g : c.groups()) rows[0].push_back(Any(ou("position " + std::to_string(g.position))));
+        for (const auto& g : c.groups()) {
+            const std::string label = c.label_of(g.position);
+            rows[0].push_back(Any(ou(label.empty() ? "position " + std::to_string(g.position) : label)));
+        }
         for (const auto& values : bayes::curves(c, n, prior_of(prior_a, prior_b))) {
             rows.emplace_back();
             for (const auto& v : values) rows.back().push_back(v ? Any(finite(*v)) : Any(OUString()));

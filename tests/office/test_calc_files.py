@@ -107,5 +107,42 @@ class SharedWithAColleague(SheetCase):
             plain.stop()
 
 
+class SampleWorkbook(SheetCase):
+    """The sample workbook opens and computes with the extension, and its
+    charts read the cells they should."""
+
+    def test_charts_cover_their_blocks_and_no_cell_shows_an_error(self):
+        import shutil
+        here = os.path.dirname(os.path.abspath(__file__))
+        path = os.path.join(harness.OFFICE.workdir, "sample.fods")
+        shutil.copy(os.path.join(here, "..", "..", "sample-sheets", "reflow-oven-trial.fods"), path)
+        os.chmod(path, 0o644)
+        self.doc.close(True)
+        self.doc = harness.OFFICE.load(path)
+        self.doc.calculateAll()
+        curves = self.doc.Sheets.getByName("Posterior curves")
+        # A saved file keeps its charts, not the names given when they were made.
+        self.assertEqual(curves.Charts.getCount(), 1)
+        ranges = curves.Charts.getByIndex(0).getRanges()
+        # Together the chart's ranges (a reloaded chart may hold its x column
+        # apart) are the RATES.POST.CURVE block: header row 31, 401 rates to
+        # row 432, columns A..E.
+        self.assertTrue(all(r.Sheet == 1 for r in ranges))
+        box = (min(r.StartColumn for r in ranges), min(r.StartRow for r in ranges),
+               max(r.EndColumn for r in ranges), max(r.EndRow for r in ranges))
+        self.assertEqual(box, (0, 30, 4, 431))
+        self.assertEqual(curves.getCellRangeByName("B31").getString(), "Oven A (line 1)")
+        for address in ("A32", "B250", "E432"):
+            self.assertEqual(curves.getCellRangeByName(address).getError(), 0, address)
+        trial = self.doc.Sheets.getByName("Oven trial")
+        self.assertEqual(trial.Charts.getCount(), 1)
+        used = trial.createCursor()
+        used.gotoEndOfUsedArea(False)
+        end = used.getRangeAddress()
+        errors = [(c, k) for k in range(end.EndRow + 1) for c in range(end.EndColumn + 1)
+                  if trial.getCellByPosition(c, k).getError()]
+        self.assertEqual(errors, [])
+
+
 if __name__ == "__main__":
     harness.main()
