@@ -89,6 +89,11 @@ public:
                              const Any& level, const Any& goal, const Any& prior_a, const Any& prior_b,
                              const Any& labels) override;
 
+    double SAL_CALL postDiffLow(const caller& document, const cells& successes, const cells& attempts, double i,
+                                double j, const Any& level, const Any& prior_a, const Any& prior_b) override;
+    double SAL_CALL postDiffHigh(const caller& document, const cells& successes, const cells& attempts, double i,
+                                 double j, const Any& level, const Any& prior_a, const Any& prior_b) override;
+
     // ---- XAddIn, XServiceName, XServiceInfo (addin.cpp) ----
     OUString SAL_CALL getProgrammaticFuntionName(const OUString& display) override;
     OUString SAL_CALL getDisplayFunctionName(const OUString& name) override;

@@ -333,6 +333,73 @@ double ahead(const beta_law& x, const beta_law& y) {
     return std::clamp(p, 0.0, 1.0);
 }
 
+
+namespace {
+
+// P(X - Y <= d).
+double difference_cdf(const beta_law& x, const beta_law& y, double d) {
+    if (d <= -1) return 0.0;
+    if (d >= 1) return 1.0;
+    const auto [lo, hi] = window(y);
+    auto f = [&](double t) {
+        const double s = t + d;
+        const double fx = s <= 0 ? 0.0 : s >= 1 ? 1.0 : boost::math::ibeta(x.a, x.b, s);
+        return fx > 0 ? std::exp(log_density(y, t)) * fx : 0.0;
+    };
+    // Pieces: where t + d crosses 0 or 1 the integrand has a corner; Y's mean
+    // is where its mass is.
+    std::vector<double> cuts{lo, hi, mean(y)};
+    for (double c : {-d, 1 - d})
+        if (c > lo && c < hi) cuts.push_back(c);
+    std::sort(cuts.begin(), cuts.end());
+    double total = 0.0, error = 0.0;
+    for (std::size_t k = 0; k + 1 < cuts.size(); ++k) {
+        if (!(cuts[k + 1] > cuts[k])) continue;
+        double piece_error = 0.0;
+        total += singular_ends(y)
+                     ? boost::math::quadrature::tanh_sinh<double>(12).integrate(f, cuts[k], cuts[k + 1], 1e-12,
+                                                                                &piece_error)
+                     : boost::math::quadrature::gauss_kronrod<double, 61>::integrate(f, cuts[k], cuts[k + 1],
+                                                                                       quad_depth, quad_tolerance,
+                                                                                       &piece_error);
+        error += piece_error;
+    }
+    if (error > 1e-11)
+        throw no_convergence("A credible bound's integral did not reach its accuracy (error estimate " +
+                             format_short(error) + ").");
+    return std::clamp(total, 0.0, 1.0);
+}
+
+double difference_quantile(const beta_law& x, const beta_law& y, double q) {
+    auto f = [&](double d) { return difference_cdf(x, y, d) - q; };
+    double lo = -1.0, hi = 1.0;
+    // Start from a bracket around the normal approximation, widened until it holds.
+    const double m = mean(x) - mean(y);
+    const double sd = std::sqrt(x.a * x.b / ((x.a + x.b) * (x.a + x.b) * (x.a + x.b + 1)) +
+                                y.a * y.b / ((y.a + y.b) * (y.a + y.b) * (y.a + y.b + 1)));
+    for (double width = 8 * sd; width < 2; width *= 2) {
+        const double a = std::max(-1.0, m - width), b = std::min(1.0, m + width);
+        if (f(a) <= 0 && f(b) >= 0) {
+            lo = a;
+            hi = b;
+            break;
+        }
+    }
+    std::uintmax_t iterations = 100;
+    // An absolute tolerance: a bound near 0 needs no relative digits.
+    const auto r = boost::math::tools::toms748_solve(
+        f, lo, hi, [](double a, double b) { return std::fabs(a - b) < 1e-13; }, iterations);
+    if (iterations >= 100) throw no_convergence("A credible bound's root search did not converge.");
+    return (r.first + r.second) / 2;
+}
+
+}  // namespace
+
+interval difference(const beta_law& x, const beta_law& y, double level) {
+    level = arguments::level(level, "level");
+    return {difference_quantile(x, y, (1 - level) / 2), difference_quantile(x, y, (1 + level) / 2)};
+}
+
 double best(std::span<const beta_law> laws, std::size_t i, goal g) {
     const bool low = g == goal::low;
     const auto [lo, hi] = window(laws[i]);

@@ -43,6 +43,7 @@ constexpr std::array above_args{successes, attempts, i, rate, shared::goal, prio
 constexpr std::array next_args{successes, attempts, i, further, at_least, prior_a, prior_b};
 constexpr std::array ahead_args{successes, attempts, i, shared::j, prior_a, prior_b};
 constexpr std::array order_args{successes, attempts, prior_a, prior_b};
+constexpr std::array diff_args{successes, attempts, i, shared::j, credible_level, prior_a, prior_b};
 constexpr std::array best_args{successes, attempts, i, shared::goal, prior_a, prior_b};
 constexpr argument prior_same{
     "prior_same",
@@ -81,6 +82,15 @@ constexpr std::array table{
              "Probability that the rate of group i is above the rate of group j, given both groups' counts: "
              "\"the pilot line is better than line 2 with probability 0.93\"." WHY_502_POST,
              ahead_args},
+    function{"postDiffLow", "RATES.POST.DIFF.LOW",
+             "Lower end of the central credible interval for rate of group i minus rate of group j (a fraction; "
+             "format as %): the difference lies above it with probability (1 - level) / 2 short of 1."
+             WHY_502_POST,
+             diff_args},
+    function{"postDiffHigh", "RATES.POST.DIFF.HIGH",
+             "Upper end of the central credible interval for rate of group i minus rate of group j (a fraction; "
+             "format as %)." WHY_502_POST,
+             diff_args},
     function{"postOrder", "RATES.POST.ORDER",
              "Square array, one row and one column per filled row of the tally: the probability that the row "
              "group's rate is above the column group's. Enter as an array formula G rows by G columns for G "

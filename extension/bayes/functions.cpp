@@ -5,6 +5,7 @@
 #include "../guard.hpp"
 #include "keywords.hpp"
 #include "tallyrates/bayes.hpp"
+#include "tallyrates/pairwise.hpp"
 #include "tallyrates/text.hpp"
 
 namespace tallyrates::uno {
@@ -84,6 +85,32 @@ double rates::postAhead(const caller& document, const cells& successes, const ce
         const auto p = prior_of(prior_a, prior_b);
         return finite(bayes::ahead(bayes::posterior(c, i, p), bayes::posterior(c, j, p)));
     });
+}
+
+namespace {
+
+interval difference_of(const caller& document, const cells& successes, const cells& attempts, double i, double j,
+                       const Any& level, const Any& prior_a, const Any& prior_b) {
+    const auto c = convert::counts_of(document, successes, attempts);
+    const auto p = prior_of(prior_a, prior_b);
+    const auto& a = c.at_position(i, "i");
+    if (a.position == c.at_position(j, "j").position) pairwise::distinct(a, a);
+    return bayes::difference(bayes::posterior(c, i, p), bayes::posterior(c, j, p),
+                             convert::number(level, "level").value_or(0.95));
+}
+
+}  // namespace
+
+double rates::postDiffLow(const caller& document, const cells& successes, const cells& attempts, double i, double j,
+                          const Any& level, const Any& prior_a, const Any& prior_b) {
+    return guarded(
+        [&] { return finite(difference_of(document, successes, attempts, i, j, level, prior_a, prior_b).low); });
+}
+
+double rates::postDiffHigh(const caller& document, const cells& successes, const cells& attempts, double i, double j,
+                           const Any& level, const Any& prior_a, const Any& prior_b) {
+    return guarded(
+        [&] { return finite(difference_of(document, successes, attempts, i, j, level, prior_a, prior_b).high); });
 }
 
 array rates::postOrder(const caller& document, const cells& successes, const cells& attempts, const Any& prior_a,

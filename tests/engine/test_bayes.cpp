@@ -42,7 +42,8 @@ TEST(Posterior, ReferenceRows) {
     for (const auto& r : reference_rows("post_")) {
         const auto f = fields(r.quantity);
         const std::string& what = f[0];
-        if (what == "post_ahead" || what == "post_best" || what == "post_loss" || what == "post_same")
+        if (what == "post_ahead" || what == "post_best" || what == "post_loss" || what == "post_same" ||
+            what == "post_diff_low" || what == "post_diff_high")
             continue;  // comparisons of groups: Compare.ReferenceRows
         const auto law = law_of(r, f);
         if (what == "post_mean") expect_close(bayes::mean(law), r.value, r);
@@ -126,7 +127,9 @@ TEST(Compare, ReferenceRows) {
     for (const auto& r : reference_rows("post_")) {
         const auto f = fields(r.quantity);
         const std::string& what = f[0];
-        if (what != "post_ahead" && what != "post_best" && what != "post_loss" && what != "post_same") continue;
+        if (what != "post_ahead" && what != "post_best" && what != "post_loss" && what != "post_same" &&
+            what != "post_diff_low" && what != "post_diff_high")
+            continue;
         SCOPED_TRACE(r.name + " " + r.quantity);
         const auto c = counts::from_values(r.successes, r.attempts);
         const bayes::prior p{std::stod(f[1]), std::stod(f[2])};
@@ -135,6 +138,10 @@ TEST(Compare, ReferenceRows) {
         if (what == "post_ahead") got = bayes::ahead(laws[std::stoul(f[3]) - 1], laws[std::stoul(f[4]) - 1]);
         if (what == "post_best") got = bayes::best(laws, std::stoul(f[3]) - 1, bayes::goal::high);
         if (what == "post_loss") got = bayes::loss(laws, std::stoul(f[3]) - 1, bayes::goal::high);
+        if (what == "post_diff_low" || what == "post_diff_high") {
+            const auto ci = bayes::difference(laws[std::stoul(f[3]) - 1], laws[std::stoul(f[4]) - 1], 0.95);
+            got = what == "post_diff_low" ? ci.low : ci.high;
+        }
         double tol_scale = 1;
         if (what == "post_same") {
             got = bayes::same(c.groups(), p, std::stod(f[3]));
@@ -150,6 +157,7 @@ TEST(Compare, ReferenceRows) {
     EXPECT_EQ(checked["post_best"], 15);
     EXPECT_EQ(checked["post_loss"], 15);
     EXPECT_EQ(checked["post_same"], 12);
+    EXPECT_EQ(checked["post_diff_low"] + checked["post_diff_high"], 4);
 }
 
 TEST(Compare, IdentitiesHold) {

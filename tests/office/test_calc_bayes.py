@@ -32,6 +32,8 @@ COMPARE = {
     "post_best": "=RATES.POST.BEST({r};{rest[0]};;{a};{b})",
     "post_loss": '=RATES.POST.LOSS({r};{rest[0]};"high";{a};{b})',
     "post_same": "=RATES.POST.SAME({r};{rest[0]};{a};{b})",
+    "post_diff_low": "=RATES.POST.DIFF.LOW({r};{rest[0]};{rest[1]};;{a};{b})",
+    "post_diff_high": "=RATES.POST.DIFF.HIGH({r};{rest[0]};{rest[1]};0.95;{a};{b})",
 }
 
 
@@ -56,7 +58,7 @@ class Posterior(SheetCase):
         self.assertEqual(self.check_rows(FORMULA, 1e-8), 54)
 
     def test_comparisons_of_groups(self):
-        self.assertEqual(self.check_rows(COMPARE, 1e-7), 50)
+        self.assertEqual(self.check_rows(COMPARE, 1e-7), 54)
 
     def test_order_array_beside_a_tally_with_a_blank_row(self):
         # Four ovens with a blank row between: the array is 4 x 4 over the filled rows.
@@ -117,7 +119,8 @@ class Posterior(SheetCase):
         for text in ("=RATES.POST.MEAN(%s;1;0)" % r, "=RATES.POST.MEAN(%s;2)" % r,
                      '=RATES.POST.LOW(%s;1;1.2)' % r, '=RATES.POST.LOW(%s;1;;"widest")' % r,
                      "=RATES.POST.ABOVE(%s;1;1.5)" % r, '=RATES.POST.ABOVE(%s;1;0.9;"up")' % r,
-                     "=RATES.POST.NEXT(%s;1;5;6)" % r, "=RATES.POST.NEXT(%s;1;2.5)" % r):
+                     "=RATES.POST.NEXT(%s;1;5;6)" % r, "=RATES.POST.NEXT(%s;1;2.5)" % r,
+                     "=RATES.POST.DIFF.LOW(%s;1;1)" % r):
             self.formula("D1", text)
             self.assertEqual(self.shown("D1"), "Err:502", text)
         self.formula("D2", "=RATES.POST.NEXT(%s;1;1E+9)" % r)

@@ -70,6 +70,11 @@ double next_at_least(const beta_law& law, std::int64_t m, std::int64_t k);
 
 // P(rate of law x > rate of law y).
 double ahead(const beta_law& x, const beta_law& y);
+// Central credible bounds at `level` for rate_x - rate_y: the d where
+// P(rate_x - rate_y <= d) = (1 -+ level) / 2, that probability being the
+// integral of f_y(t) F_x(t + d) dt (split where t + d meets 0 or 1), found by
+// a bracketing root search (TOMS 748).
+interval difference(const beta_law& x, const beta_law& y, double level);
 // P(law i has the best rate among `laws`) (the highest, or the lowest for goal low).
 double best(std::span<const beta_law> laws, std::size_t i, goal g);
 // Expected shortfall of choosing law i: E[best rate] - E[rate_i] (mirrored for goal low).
