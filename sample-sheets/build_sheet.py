@@ -80,7 +80,7 @@ def add_interval_bars(office, chart, sheet_name):
     series.ErrorBarY = bars
 
 
-CURVE_TOP, CURVE_POINTS = 31, 401  # the curve block: a header row, then 401 rates from 0 to 1
+CURVE_TOP, CURVE_POINTS = 34, 401  # the curve block: a header row, then 401 rates from 0 to 1
 
 
 def add_curves_sheet(doc):
@@ -90,6 +90,7 @@ def add_curves_sheet(doc):
     doc.Sheets.insertNewByName("Posterior curves", 1)
     sheet = doc.Sheets.getByName("Posterior curves")
     cell = sheet.getCellRangeByName
+    sheet.Columns.getByName("A").Width = 5200
     cell("A1").setString("What each oven's pass rate may be, given its counts (Bayesian, flat prior)")
     cell("A1").CharWeight = 150
     cell("A2").setString("The taller and narrower a curve, the better the counts pin the rate down: the pilot's "
@@ -100,7 +101,19 @@ def add_curves_sheet(doc):
                                 % CURVE_POINTS)
     cell("A%d" % (CURVE_TOP - 1)).setString("Data for the chart (array formula; its header row names the ovens):")
     at = cell("A4").Position
-    rect = Rectangle(at.X, at.Y, 24000, 11000)
+    rect = Rectangle(at.X, at.Y, 24000, 8000)
+    # Below the chart: the posterior table, one row per oven.
+    cell("A25").setString("Posterior table (array formula): expected pass rate, 95 % credible interval, chance of "
+                          "being the best oven, expected shortfall of choosing it")
+    cell("A25").CharWeight = 150
+    cell("A26:F30").setArrayFormula("RATES.POST.TABLE($'Oven trial'.B5:B8;$'Oven trial'.C5:C8;;;;;$'Oven trial'.A5:A8)")
+    cell("B27:D30").NumberFormat = number_format(doc, "0.0%")
+    cell("E27:E30").NumberFormat = number_format(doc, "0.00")
+    cell("F27:F30").NumberFormat = number_format(doc, "0.00%")
+    cell("A26:F26").CharWeight = 150
+    cell("B26:F26").HoriJustify = 3  # RIGHT, over the numbers
+    for col in "BCDEF":
+        sheet.Columns.getByName(col).Width = 2900
     data = CellRangeAddress(1, 0, CURVE_TOP - 1, 4, bottom - 1)  # A..E, header row (legend) to the last rate
     sheet.Charts.addNewByName("PosteriorCurves", rect, (data,), True, False)
     chart = sheet.Charts.getByName("PosteriorCurves").EmbeddedObject
@@ -120,7 +133,7 @@ def add_curves_sheet(doc):
         series.SymbolType = -3  # com.sun.star.chart.ChartSymbolType.NONE: lines only
     # Print the chart, not the 400 rows of data.
     from com.sun.star.table import CellRangeAddress as Area
-    sheet.setPrintAreas((Area(1, 0, 0, 12, 26),))
+    sheet.setPrintAreas((Area(1, 0, 0, 12, 30),))
 
 
 def main():
@@ -153,7 +166,8 @@ def main():
                 ("F", "95 % low", "RATES.ONE.LOW(%s;{i})" % COUNTS, percent),
                 ("G", "95 % high", "RATES.ONE.HIGH(%s;{i})" % COUNTS, percent),
                 ("K", "P(pass rate above target)", "RATES.POST.ABOVE(%s;{i};$B$3)" % COUNTS, "0.00"),
-                ("L", "P(best oven)", "RATES.POST.BEST(%s;{i})" % COUNTS, "0.00")):
+                ("L", "P(best oven)", "RATES.POST.BEST(%s;{i})" % COUNTS, "0.00"),
+                ("M", "P(pilot ahead of this oven)", "IF({i}=4;\"\";RATES.POST.AHEAD(%s;4;{i}))" % COUNTS, "0.00")):
             heading(cell(col + "4"), text)
             for r in range(5, 12):
                 cell("%s%d" % (col, r)).setFormula('=IF(C%d>0;%s;"")' % (r, fn.format(i=r - 4)))
@@ -204,7 +218,7 @@ def main():
         cell("A14").VertJustify = 1
         sheet.Rows.getByIndex(13).OptimalHeight = True
         columns = sheet.Columns
-        for col, width in zip("ABCDEFGHIJKL", [7800, 3600, 2600, 2400, 3800, 2400, 2600, 2800, 0, 0, 3000, 2200]):
+        for col, width in zip("ABCDEFGHIJKLM", [7800, 3600, 2600, 2400, 3800, 2400, 2600, 2800, 0, 0, 3000, 2200, 3000]):
             columns.getByName(col).Width = width
         # The error-bar helper columns are for the chart only.
         for col in "IJ":
@@ -218,7 +232,7 @@ def main():
         style.ScaleToPagesY = 1
         # Pass rate by oven with its interval, for the eye.
         # To the right of the tally, clear of the report's long sentences.
-        at = cell("M4").Position
+        at = cell("N4").Position
         rect = Rectangle(at.X + 500, at.Y, 12000, 8500)
         # Every row that invites counts (5 to 11), so a new oven appears as it is typed.
         label_area = CellRangeAddress(0, 0, 3, 0, 10)  # A4:A11

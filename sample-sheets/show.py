@@ -32,9 +32,9 @@ def main():
         print()
         print("  %s %s" % (cell("A3").getString(), cell("B3").getString()))
         for r in range(4, 12):
-            row = [lo.cell_text(cell("%s%d" % (c, r))) for c in "ABCDEFGHKL"]
+            row = [lo.cell_text(cell("%s%d" % (c, r))) for c in "ABCDEFGHKLM"]
             if any(row):
-                print("  %-22s %15s %11s %10s %20s %9s %9s %23s %26s %13s" % tuple(row))
+                print("  %-22s %15s %11s %10s %20s %9s %9s %23s %26s %13s %28s" % tuple(row))
         print()
         errors = []
         for r in list(range(14, 25)) + list(range(26, 37)):
@@ -51,7 +51,14 @@ def main():
             if any(row):
                 print("  %-22s %-22s %17s %19s %20s %14s %16s" % tuple(row))
             errors += ["%s%d" % (c, r) for c, shown in zip("ABCDEFG", row) if shown.startswith("Err:")]
-        errors += ["%s%d" % (c, r) for c in "FGHKL" for r in range(5, 12) if lo.cell_text(cell("%s%d" % (c, r))).startswith("Err:")]
+        errors += ["%s%d" % (c, r) for c in "FGHKLM" for r in range(5, 12) if lo.cell_text(cell("%s%d" % (c, r))).startswith("Err:")]
+        curves = doc.Sheets.getByName("Posterior curves")
+        print()
+        print("  " + curves.getCellRangeByName("A25").getString())
+        for r in range(26, 31):
+            row = [lo.cell_text(curves.getCellByPosition(c, r - 1)) for c in range(6)]
+            print("  %-22s %14s %11s %11s %9s %15s" % tuple(row))
+            errors += ["Posterior curves row %d" % r for shown in row if shown.startswith("Err:")]
         pdf = os.path.join(office.workdir, "reflow-oven-trial.pdf")
         lo.save_as(doc, pdf, "calc_pdf_Export")
         doc.close(True)

@@ -62,7 +62,14 @@ void BM_next_1000(benchmark::State& state) {
     const bayes::beta_law law{501, 1};
     for (auto _ : state) benchmark::DoNotOptimize(bayes::next_at_least(law, 1000, 1000));
 }
+void BM_difference_bounds(benchmark::State& state) {
+    const double n = static_cast<double>(state.range(0));
+    const bayes::beta_law a{1 + std::floor(0.95 * n), 1 + n - std::floor(0.95 * n)};
+    const bayes::beta_law b{1 + std::floor(0.94 * n), 1 + n - std::floor(0.94 * n)};
+    for (auto _ : state) benchmark::DoNotOptimize(bayes::difference(a, b, 0.95));
+}
 BENCHMARK(BM_credible_hpd)->Unit(benchmark::kMicrosecond);
+BENCHMARK(BM_difference_bounds)->Arg(300)->Arg(10000)->Unit(benchmark::kMillisecond);
 BENCHMARK(BM_next_1000)->Unit(benchmark::kMicrosecond);
 
 }  // namespace

@@ -125,14 +125,14 @@ class SampleWorkbook(SheetCase):
         self.assertEqual(curves.Charts.getCount(), 1)
         ranges = curves.Charts.getByIndex(0).getRanges()
         # Together the chart's ranges (a reloaded chart may hold its x column
-        # apart) are the RATES.POST.CURVE block: header row 31, 401 rates to
-        # row 432, columns A..E.
+        # apart) are the RATES.POST.CURVE block: header row 34, 401 rates to
+        # row 435, columns A..E.
         self.assertTrue(all(r.Sheet == 1 for r in ranges))
         box = (min(r.StartColumn for r in ranges), min(r.StartRow for r in ranges),
                max(r.EndColumn for r in ranges), max(r.EndRow for r in ranges))
-        self.assertEqual(box, (0, 30, 4, 431))
-        self.assertEqual(curves.getCellRangeByName("B31").getString(), "Oven A (line 1)")
-        for address in ("A32", "B250", "E432"):
+        self.assertEqual(box, (0, 33, 4, 434))
+        self.assertEqual(curves.getCellRangeByName("B34").getString(), "Oven A (line 1)")
+        for address in ("A35", "B250", "E435", "F30"):
             self.assertEqual(curves.getCellRangeByName(address).getError(), 0, address)
         trial = self.doc.Sheets.getByName("Oven trial")
         self.assertEqual(trial.Charts.getCount(), 1)
