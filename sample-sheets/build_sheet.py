@@ -83,6 +83,22 @@ def add_interval_bars(office, chart, sheet_name):
 CURVE_TOP, CURVE_POINTS = 34, 401  # the curve block: a header row, then 401 rates from 0 to 1
 
 
+def titled_chart(sheet, name, rect, ranges, row_headers, diagram, titles):
+    """A chart over `ranges` with a title and axis titles; the legend only
+    when the series carry names (no row headers); `diagram` another kind than
+    bars (e.g. "XYDiagram")."""
+    sheet.Charts.addNewByName(name, rect, ranges, True, row_headers)
+    chart = sheet.Charts.getByName(name).EmbeddedObject
+    if diagram:
+        chart.Diagram = chart.createInstance("com.sun.star.chart." + diagram)
+    chart.HasMainTitle = True
+    chart.HasLegend = not row_headers
+    chart.Diagram.HasXAxisTitle = True
+    chart.Diagram.HasYAxisTitle = True
+    chart.Title.String, chart.Diagram.XAxisTitle.String, chart.Diagram.YAxisTitle.String = titles
+    return chart
+
+
 def add_curves_sheet(doc):
     """A second sheet: each oven's posterior density (RATES.POST.CURVE) as an
     XY line chart, how far the counts pin each pass rate down. Only the chart
@@ -115,16 +131,8 @@ def add_curves_sheet(doc):
     for col in "BCDEF":
         sheet.Columns.getByName(col).Width = 2900
     data = CellRangeAddress(1, 0, CURVE_TOP - 1, 4, bottom - 1)  # A..E, header row (legend) to the last rate
-    sheet.Charts.addNewByName("PosteriorCurves", rect, (data,), True, False)
-    chart = sheet.Charts.getByName("PosteriorCurves").EmbeddedObject
-    chart.Diagram = chart.createInstance("com.sun.star.chart.XYDiagram")
-    chart.HasMainTitle = True
-    chart.Title.String = "Posterior density of each oven's pass rate"
-    chart.HasLegend = True
-    chart.Diagram.HasXAxisTitle = True
-    chart.Diagram.XAxisTitle.String = "Pass rate"
-    chart.Diagram.HasYAxisTitle = True
-    chart.Diagram.YAxisTitle.String = "Density"
+    chart = titled_chart(sheet, "PosteriorCurves", rect, (data,), False, "XYDiagram",
+                         ("Posterior density of each oven's pass rate", "Pass rate", "Density"))
     x_axis = chart.Diagram.XAxis
     x_axis.AutoMin, x_axis.AutoMax = False, False
     x_axis.Min, x_axis.Max = 0.75, 1.0
@@ -231,20 +239,14 @@ def main():
         style.ScaleToPagesX = 1
         style.ScaleToPagesY = 1
         # Pass rate by oven with its interval, for the eye.
-        # To the right of the tally, clear of the report's long sentences.
-        at = cell("N4").Position
-        rect = Rectangle(at.X + 500, at.Y, 12000, 8500)
+        # Right of the results, clear of the report's long sentences, so that
+        # the page stays about as wide as the tally.
+        at = cell("K16").Position
+        rect = Rectangle(at.X, at.Y, 8800, 8000)
         # Every row that invites counts (5 to 11), so a new oven appears as it is typed.
         label_area = CellRangeAddress(0, 0, 3, 0, 10)  # A4:A11
-        sheet.Charts.addNewByName("PassRates", rect, (label_area, CellRangeAddress(0, 3, 3, 3, 10)), True, True)
-        chart = sheet.Charts.getByName("PassRates").EmbeddedObject
-        chart.HasMainTitle = True
-        chart.Title.String = "Pass rate by oven"
-        chart.HasLegend = False
-        chart.Diagram.HasXAxisTitle = True
-        chart.Diagram.XAxisTitle.String = "Oven"
-        chart.Diagram.HasYAxisTitle = True
-        chart.Diagram.YAxisTitle.String = "Boards passing inspection (95 % interval)"
+        chart = titled_chart(sheet, "PassRates", rect, (label_area, CellRangeAddress(0, 3, 3, 3, 10)), True, None,
+                             ("Pass rate by oven", "Oven", "Boards passing inspection (95 % interval)"))
         add_interval_bars(office, chart, sheet.Name)
         # From 50 %: room for the intervals of short runs, without hiding a poor oven.
         y_axis = chart.Diagram.YAxis
