@@ -285,8 +285,9 @@ double ahead_direct(const beta_law& x, const beta_law& y) {
     return std::exp(log_integral([&](double t) { return log_density(x, t) + log_cdf(y, t, false); }, lo, hi));
 }
 
-// Largest number of terms the finite sum may take (about 1 ms).
-constexpr double max_sum_terms = 300000;
+// Largest number of terms the finite sum may take (about 2 ms; 10^6 terms
+// measured at 1.06 ms).
+constexpr double max_sum_terms = 2000000;
 
 bool whole_and_small(double a) { return a == std::floor(a) && a <= max_sum_terms; }
 
