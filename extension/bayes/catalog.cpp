@@ -84,7 +84,8 @@ constexpr std::array table{
              ahead_args},
     function{"postDiffLow", "RATES.POST.DIFF.LOW",
              "Lower end of the central credible interval for rate of group i minus rate of group j (a fraction; "
-             "format as %): the difference lies above it with probability (1 - level) / 2 short of 1."
+             "format as %): the difference lies below it with probability (1 - level) / 2, 2.5 % at the default "
+             "level. Above 0: the rate of group i is the higher one with probability at least 97.5 % (at 0.95)."
              WHY_502_POST,
              diff_args},
     function{"postDiffHigh", "RATES.POST.DIFF.HIGH",
