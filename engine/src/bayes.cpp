@@ -23,6 +23,12 @@ namespace {
 // Further attempts a prediction may sum over (about 30 ms at the worst).
 constexpr std::int64_t max_further_attempts = 10000000;
 
+// log B(a, b) by log-gamma: its absolute error grows like eps * a log a (about
+// 3e-9 at a = 10^6), which is what SAME can promise there.
+double log_beta(double a, double b) {
+    return boost::math::lgamma(a) + boost::math::lgamma(b) - boost::math::lgamma(a + b);
+}
+
 double quantile(const beta_law& law, double q) {
     return boost::math::ibeta_inv(law.a, law.b, q);
 }
@@ -107,8 +113,7 @@ double next_at_least(const beta_law& law, std::int64_t m, std::int64_t k) {
     // log P(X = k) = log C(m, k) + log B(k + a, m - k + b) - log B(a, b).
     const double kd = static_cast<double>(k);
     double log_scale = boost::math::lgamma(md + 1) - boost::math::lgamma(kd + 1) - boost::math::lgamma(md - kd + 1) +
-                       boost::math::lgamma(kd + a) + boost::math::lgamma(md - kd + b) - boost::math::lgamma(md + a + b) -
-                       (boost::math::lgamma(a) + boost::math::lgamma(b) - boost::math::lgamma(a + b));
+                       log_beta(kd + a, md - kd + b) - log_beta(a, b);
     // The upper tail summed upward from k, terms relative to P(X = k) and
     // rescaled when large, by the ratio of successive terms
     //   P(x + 1) / P(x) = (m - x)(x + a) / ((x + 1)(m - x - 1 + b)),
@@ -157,15 +162,11 @@ double log_density(const beta_law& law, double x) {
         // Next to an end where the density is infinite (a or b below 1): in
         // logs, where the parameters are small and log-gamma is exact enough.
         return (law.a - 1) * std::log(x) + (law.b - 1) * std::log1p(-x) -
-               (boost::math::lgamma(law.a) + boost::math::lgamma(law.b) - boost::math::lgamma(law.a + law.b));
+               log_beta(law.a, law.b);
     }
 }
 
-// log B(a, b) by log-gamma: its absolute error grows like eps * a log a (about
-// 3e-9 at a = 10^6), which is what SAME can promise there.
-double log_beta(double a, double b) {
-    return boost::math::lgamma(a) + boost::math::lgamma(b) - boost::math::lgamma(a + b);
-}
+
 
 // log F(x) or log(1 - F(x)); -infinity when it underflows.
 double log_cdf(const beta_law& law, double x, bool upper) {
@@ -266,7 +267,7 @@ double log_integral_singular(G g, double lo, double hi) {
 // 1 (small parameters: log-gamma is exact enough for its constant).
 double log_density_ends(const beta_law& law, double t, double one_minus_t) {
     return (law.a - 1) * std::log(t) + (law.b - 1) * std::log(one_minus_t) -
-           (boost::math::lgamma(law.a) + boost::math::lgamma(law.b) - boost::math::lgamma(law.a + law.b));
+           log_beta(law.a, law.b);
 }
 
 bool singular_ends(const beta_law& law) { return law.a < 1 || law.b < 1; }
@@ -302,8 +303,7 @@ bool whole_and_small(double a) { return a == std::floor(a) && a <= max_sum_terms
 // no longer count.
 double ahead_sum(const beta_law& x, const beta_law& y) {
     const double a1 = x.a, b1 = x.b, a2 = y.a, b2 = y.b;
-    double log_scale = boost::math::lgamma(a2) + boost::math::lgamma(b1 + b2) - boost::math::lgamma(a2 + b1 + b2) -
-                       (boost::math::lgamma(a2) + boost::math::lgamma(b2) - boost::math::lgamma(a2 + b2));
+    double log_scale = log_beta(a2, b1 + b2) - log_beta(a2, b2);
     double term = 1.0, sum = 0.0;
     for (double i = 0; i < a1; ++i) {
         sum += term;

@@ -235,18 +235,17 @@ std::vector<pair_row> pairs_table(const counts& c, const table_options& o, p_cac
         throw invalid_input("At least two groups with attempts are needed to compare pairs; " +
                             std::to_string(groups.size()) + (groups.size() == 1 ? " has" : " have") + " any.");
     const interval_options io{o.level, o.how, o.intervals, family::all};
-    const test_options to{test_method::score, adjust::p_values::none, family::all};
-    test_options adjusted = to;
-    adjusted.adjust = o.p;
-    // The raw p-values are shared by every row's adjustment: keep them once
-    // even when the caller brings no cache.
-    p_cache own(1);
-    if (!cache) cache = &own;
+    // The p-values of the family "all", adjusted once: the same vectors the
+    // single-cell RATES.PAIR.P takes its value from (same_rate_p above).
+    const auto raw = all_pairs_p(c, test_method::score, cache);
+    const auto adjusted = adjust::adjusted(raw, o.p);
+    const auto pairs = pairs_of(groups);
     std::vector<pair_row> rows;
-    for (const auto& [a, b] : pairs_of(groups)) {
+    for (std::size_t k = 0; k < pairs.size(); ++k) {
+        const auto [a, b] = pairs[k];
         const auto i = static_cast<double>(a->position), j = static_cast<double>(b->position);
-        rows.push_back({a->position, b->position, difference(c, i, j), difference_interval(c, i, j, io),
-                        same_rate_p(c, i, j, to, cache), same_rate_p(c, i, j, adjusted, cache)});
+        rows.push_back({a->position, b->position, difference(c, i, j), difference_interval(c, i, j, io), raw[k],
+                        adjusted[k]});
     }
     return rows;
 }

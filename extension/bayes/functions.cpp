@@ -93,8 +93,7 @@ interval difference_of(const caller& document, const cells& successes, const cel
                        const Any& level, const Any& prior_a, const Any& prior_b) {
     const auto c = convert::counts_of(document, successes, attempts);
     const auto p = prior_of(prior_a, prior_b);
-    const auto& a = c.at_position(i, "i");
-    if (a.position == c.at_position(j, "j").position) pairwise::distinct(a, a);
+    pairwise::distinct(c.at_position(i, "i"), c.at_position(j, "j"));
     return bayes::difference(bayes::posterior(c, i, p), bayes::posterior(c, j, p),
                              convert::number(level, "level").value_or(0.95));
 }
