@@ -29,6 +29,8 @@ void rethrow_for_calc() {
         err523(e.what());
     } catch (const no_convergence& e) {
         err523(e.what());
+    } catch (const unreachable_target& e) {
+        err523(e.what());
     } catch (const boost::math::evaluation_error& e) {  // derives from std::runtime_error
         err523(numerical(e));
     } catch (const boost::math::rounding_error& e) {  // likewise

@@ -321,10 +321,15 @@ double ahead_sum(const beta_law& x, const beta_law& y) {
 
 // P(X > Y) on the side that is the smaller probability (the law with the
 // lower mean is the one less likely to be ahead), so small answers keep their
-// relative accuracy: the finite sum where its parameter is a whole number of
-// modest size, else the integral.
+// relative accuracy: the finite sum where a parameter is a whole number of
+// modest size, else the integral. The sum runs over X's first parameter, or,
+// mirrored (X > Y exactly when 1 - Y > 1 - X, and 1 - Y ~ Beta(b2, a2)), over
+// Y's second one: the fewer terms wins, so a line with 10^6 attempts and few
+// failures costs as many terms as it has failures.
 double ahead_small_side(const beta_law& x, const beta_law& y) {
-    return whole_and_small(x.a) ? ahead_sum(x, y) : ahead_direct(x, y);
+    const bool direct = whole_and_small(x.a), mirrored = whole_and_small(y.b);
+    if (mirrored && (!direct || y.b < x.a)) return ahead_sum({y.b, y.a}, {x.b, x.a});
+    return direct ? ahead_sum(x, y) : ahead_direct(x, y);
 }
 
 }  // namespace

@@ -45,7 +45,10 @@ double two_sided_z(double level) {
 }
 
 interval bounds(std::int64_t x, std::int64_t n, double level, method how) {
-    const auto xd = static_cast<double>(x), nd = static_cast<double>(n);
+    return bounds_at(static_cast<double>(x), static_cast<double>(n), level, how);
+}
+
+interval bounds_at(double xd, double nd, double level, method how) {
     switch (how) {
         case method::wilson: return wilson(xd, nd, two_sided_z(level));
         case method::agresti_coull: return agresti_coull(xd, nd, two_sided_z(level));

@@ -18,9 +18,10 @@
 // Comparisons of groups are one-dimensional integrals over a rate x:
 // - AHEAD: P(rate_1 > rate_2), on the side that is the smaller probability so
 //   that small answers keep their relative accuracy: the finite sum of Cook
-//   (2005, technical report, UT MD Anderson Cancer Center) when the first
-//   Beta parameter is a whole number up to 2,000,000 (whole counts and a whole
-//   prior_a), else the integral of f_1(x) F_2(x) dx; BEST: P(group i is best) = integral of
+//   (2005, technical report, UT MD Anderson Cancer Center) over the first
+//   Beta parameter of the group behind, or over the second of the group ahead
+//   (by symmetry), whichever is the smaller whole number up to 2,000,000
+//   (whole counts and a whole prior), else the integral of f_1(x) F_2(x) dx; BEST: P(group i is best) = integral of
 //   f_i(x) prod_{j != i} F_j(x) dx (1 - F_j for goal "low"); LOSS:
 //   E[max_j rate_j] - E[rate_i] with E[max] = integral of (1 - prod_j F_j(x)) dx.
 //   The integrand is kept in logs, integrated only where the mass is (between

@@ -1,8 +1,8 @@
 // errors.hpp - every exception type the engine throws.
 //
 // The engine reports three kinds of failure; extension/ maps each to one Calc
-// error code (architecture: invalid_input -> Err:502, budget_exceeded and
-// no_convergence -> Err:523). Messages are whole sentences a user can act on,
+// error code (architecture: invalid_input -> Err:502, budget_exceeded,
+// unreachable_target and no_convergence -> Err:523). Messages are whole sentences a user can act on,
 // because RATES.CHECK and RATES.SAME.REPORT show them verbatim.
 #pragma once
 
@@ -40,6 +40,14 @@ public:
         : budget_exceeded(message), has_bounds(has_bounds), p_low(p_low), p_high(p_high) {}
     bool has_bounds;
     double p_low, p_high;
+};
+
+// A planning target no number of attempts meets (a rate of 100 % to
+// demonstrate, a half-width of 0, a power of 1, no difference to detect), or
+// one that needs more attempts than the planning cap.
+class unreachable_target : public std::runtime_error {
+public:
+    using std::runtime_error::runtime_error;
 };
 
 // An iterative method did not reach its accuracy target.

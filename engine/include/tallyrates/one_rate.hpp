@@ -31,6 +31,9 @@ double two_sided_z(double level);
 
 // Interval for x successes in n >= 1 attempts at `level` in (0, 1).
 interval bounds(std::int64_t x, std::int64_t n, double level, method how);
+// The same formulas at a real count 0 <= x <= n (planning searches between
+// whole counts).
+interval bounds_at(double x, double n, double level, method how);
 
 // Interval for the group at position i of the tally (which must have
 // attempts); `level` is checked (arguments::level).

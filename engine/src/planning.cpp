@@ -1,0 +1,199 @@
+// planning.cpp - sizes for further runs; methods and sources in planning.hpp.
+#include "tallyrates/planning.hpp"
+
+#include <algorithm>
+#include <boost/math/distributions/binomial.hpp>
+#include <boost/math/distributions/normal.hpp>
+#include <cmath>
+
+#include "tallyrates/arguments.hpp"
+#include "tallyrates/errors.hpp"
+#include "tallyrates/text.hpp"
+
+namespace tallyrates::planning {
+
+namespace {
+
+std::string the(const char* name, double value) {
+    return std::string("The argument ") + name + " (" + format_number(value) + ")";
+}
+
+// A rate typed by the user: a fraction from 0 to 1.
+double fraction(double value, const char* name) {
+    if (!(value >= 0 && value <= 1))
+        throw invalid_input(the(name, value) + " must be a rate from 0 to 1, for example 0.99 for 99 %.");
+    return value;
+}
+
+[[noreturn]] void beyond_cap(const char* what) {
+    throw unreachable_target(std::string("This needs more than ") + format_number(max_attempts) + " " + what +
+                             ", the planning cap: relax the target.");
+}
+
+// The smallest whole number at least x. The values come out of logarithms
+// and square roots: one within 1e-12 (relative) of a whole number is taken as
+// that number, so 2.0000000000000004 gives 2, not 3.
+std::int64_t whole_at_least(double x) {
+    const double n = std::ceil(x - 1e-12 * std::abs(x));
+    if (!(n <= max_attempts)) beyond_cap("attempts");
+    return std::max<std::int64_t>(1, static_cast<std::int64_t>(n));
+}
+
+// The smallest n in [low, high] with meets(n), for a test that holds from
+// some n on; meets(high) must hold.
+template <class F>
+std::int64_t first_meeting(std::int64_t low, std::int64_t high, F meets) {
+    while (low < high) {
+        const std::int64_t mid = low + (high - low) / 2;
+        if (meets(mid))
+            high = mid;
+        else
+            low = mid + 1;
+    }
+    return low;
+}
+
+}  // namespace
+
+// ---- demonstration ----
+
+std::int64_t demonstration(double rate, double confidence, std::int64_t failures) {
+    if (!(rate > 0 && rate <= 1))
+        throw invalid_input(the("rate", rate) + " must lie above 0 and at most 1, for example 0.99 for 99 %.");
+    arguments::level(confidence, "confidence");
+    if (rate == 1)
+        throw unreachable_target(
+            "No number of attempts demonstrates a rate of 100 %: every finite test leaves some doubt. Use a "
+            "rate below 1, such as 0.999.");
+    // Success-run: n ln(R) <= ln(1 - C). Both logarithms by log1p: R - 1 is exact for R in [0.5, 1].
+    const std::int64_t zero_failures = whole_at_least(std::log1p(-confidence) / std::log1p(rate - 1));
+    if (failures == 0) return zero_failures;
+    // With f failures allowed: the binomial tail P(at most f failures in n) falls as n grows and is at
+    // most R^n, so the answer is above both f and the zero-failure size.
+    const double tail = 1 - confidence, defect = 1 - rate;
+    const auto meets = [&](std::int64_t n) {
+        return boost::math::cdf(boost::math::binomial_distribution<double>(static_cast<double>(n), defect),
+                                static_cast<double>(failures)) <= tail;
+    };
+    const std::int64_t cap = static_cast<std::int64_t>(max_attempts);
+    std::int64_t low = std::max<std::int64_t>(zero_failures, failures + 1), high = low;
+    while (!meets(high)) {
+        if (high >= cap) beyond_cap("attempts");
+        low = high + 1;
+        high = std::min(cap, 2 * high);
+    }
+    return first_meeting(low, high, meets);
+}
+
+// ---- interval width ----
+
+double half_width(double rate, std::int64_t n, double level, one_rate::method how) {
+    const double nd = static_cast<double>(n);
+    const interval b = one_rate::bounds_at(std::floor(rate * nd + 0.5), nd, level, how);
+    return (b.high - b.low) / 2;
+}
+
+std::int64_t width(double rate, double half, double level, one_rate::method how) {
+    fraction(rate, "rate");
+    arguments::level(level, "level");
+    if (half == 0)
+        throw unreachable_target("No number of attempts gives an interval of width 0: choose a half-width above 0.");
+    if (!(half > 0 && half < 1))
+        throw invalid_input(the("half_width", half) +
+                            " must lie above 0 and below 1: 0.02 asks for plus or minus 2 percentage points.");
+    // The lower envelope: the narrower interval at the real counts rate n -+ 1/2.
+    const auto envelope = [&](std::int64_t n) {
+        const double nd = static_cast<double>(n), centre = rate * nd;
+        const auto at = [&](double x) {
+            const interval b = one_rate::bounds_at(std::clamp(x, 0.0, nd), nd, level, how);
+            return (b.high - b.low) / 2;
+        };
+        return std::min(at(centre - 0.5), at(centre + 0.5));
+    };
+    const auto cap = static_cast<std::int64_t>(max_attempts);
+    if (envelope(cap) > half) beyond_cap("attempts");
+    std::int64_t n = first_meeting(1, cap, [&](std::int64_t m) { return envelope(m) <= half; });
+    // Whole counts: step up until the interval itself is narrow enough. The
+    // whole count changes every 1 / rate attempts, so the steps are few; the
+    // bound keeps a pathological case from running on.
+    for (const std::int64_t last = n + 1000000; n <= last && n <= cap; ++n)
+        if (half_width(rate, n, level, how) <= half) return n;
+    throw no_convergence("The search for the number of attempts did not settle; try another interval method.");
+}
+
+// ---- power ----
+
+correction correction_from_number(double value) {
+    if (value == 1) return correction::continuity;
+    if (value == 0) return correction::none;
+    throw invalid_input(the("correction", value) +
+                        " must be TRUE or FALSE (1 or 0), or the word \"none\" or \"continuity\".");
+}
+
+namespace {
+
+struct power_terms {
+    double difference;  // |p1 - p2|
+    double null_sd;     // sqrt(2 pbar qbar)
+    double sd;          // sqrt(p1 q1 + p2 q2)
+    double z_alpha;     // two-sided
+};
+
+power_terms terms_of(double p1, double p2, double alpha) {
+    fraction(p1, "rate_1");
+    fraction(p2, "rate_2");
+    arguments::level(alpha, "alpha");
+    if (p1 == p2)
+        throw unreachable_target("The two rates are equal: there is no difference to detect. Enter the rate you "
+                                 "expect and the rate you want to be able to tell apart from it.");
+    const double pbar = (p1 + p2) / 2;
+    const boost::math::normal normal;
+    return {std::abs(p1 - p2), std::sqrt(2 * pbar * (1 - pbar)), std::sqrt(p1 * (1 - p1) + p2 * (1 - p2)),
+            boost::math::quantile(boost::math::complement(normal, alpha / 2))};
+}
+
+}  // namespace
+
+double power_at(double rate_1, double rate_2, double n, double alpha, correction how) {
+    const power_terms t = terms_of(rate_1, rate_2, alpha);
+    const double root = std::sqrt(n);
+    const double margin = root * t.difference - (how == correction::continuity ? 1 / root : 0) - t.z_alpha * t.null_sd;
+    if (t.sd == 0) return margin > 0 ? 1.0 : 0.0;
+    return boost::math::cdf(boost::math::normal(), margin / t.sd);
+}
+
+std::int64_t power(double rate_1, double rate_2, double power, double alpha, correction how) {
+    if (power == 1)
+        throw unreachable_target("No number of attempts gives a power of 1 (certainty): use 0.8, 0.9 or 0.95.");
+    arguments::level(power, "power");
+    const power_terms t = terms_of(rate_1, rate_2, alpha);
+    const double z_power = boost::math::quantile(boost::math::normal(), power);
+    const double k = t.z_alpha * t.null_sd + z_power * t.sd;
+    if (how == correction::none) return k <= 0 ? 1 : whole_at_least(k * k / (t.difference * t.difference));
+    // Fleiss, Tytun & Ury (1980): the root u = sqrt(n) of |d| u^2 - k u - 1 = 0.
+    const double u = (k + std::sqrt(k * k + 4 * t.difference)) / (2 * t.difference);
+    return whole_at_least(u * u);
+}
+
+// ---- how long a pilot must keep succeeding ----
+
+std::int64_t ahead(const bayes::beta_law& pilot, const bayes::beta_law& other, double confidence) {
+    if (confidence == 1)
+        throw unreachable_target("No run of successes makes the pilot ahead with certainty: use a confidence "
+                                 "below 1, such as 0.95.");
+    arguments::level(confidence, "confidence");
+    const auto meets = [&](std::int64_t m) {
+        return bayes::ahead({pilot.a + static_cast<double>(m), pilot.b}, other) >= confidence;
+    };
+    if (meets(0)) return 0;
+    const auto cap = static_cast<std::int64_t>(max_attempts);
+    std::int64_t low = 1, high = 1;
+    while (!meets(high)) {
+        if (high >= cap) beyond_cap("further successes");
+        low = high + 1;
+        high = std::min(cap, 2 * high);
+    }
+    return first_meeting(low, high, meets);
+}
+
+}  // namespace tallyrates::planning
