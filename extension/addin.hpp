@@ -1,5 +1,5 @@
 // addin.hpp - the UNO add-in class. Its worksheet methods (XRates) are
-// defined one file per family (omnibus/functions.cpp, pairs/functions.cpp),
+// defined one file per family (omnibus/, pairs/, bayes/, planning/ functions.cpp),
 // each about ten lines: convert, call the engine, return, inside `guarded`.
 // The XAddIn, XServiceName and XServiceInfo answers and the factory are in
 // addin.cpp; names and descriptions come from the catalog.
@@ -93,6 +93,15 @@ public:
                                 double j, const Any& level, const Any& prior_a, const Any& prior_b) override;
     double SAL_CALL postDiffHigh(const caller& document, const cells& successes, const cells& attempts, double i,
                                  double j, const Any& level, const Any& prior_a, const Any& prior_b) override;
+
+    // ---- planning family (planning/functions.cpp) ----
+    double SAL_CALL planDemo(const caller& document, double rate, double confidence, const Any& failures) override;
+    double SAL_CALL planWidth(const caller& document, double rate, double half_width, const Any& level,
+                              const Any& method) override;
+    double SAL_CALL planPower(const caller& document, double rate_1, double rate_2, const Any& power,
+                              const Any& alpha, const Any& correction) override;
+    double SAL_CALL planAhead(const caller& document, const cells& successes, const cells& attempts, double i,
+                              double j, double confidence, const Any& prior_a, const Any& prior_b) override;
 
     // ---- XAddIn, XServiceName, XServiceInfo (addin.cpp) ----
     OUString SAL_CALL getProgrammaticFuntionName(const OUString& display) override;

@@ -228,6 +228,14 @@ std::optional<std::string> word(const Any& a, const char* argument) {
     return uno::utf8(s);
 }
 
+number_or_word switch_value(const Any& a, const char* argument) {
+    const Any v = single(a);
+    bool on = false;
+    if (v >>= on) return {on ? 1.0 : 0.0, std::nullopt};
+    if (v.getValueTypeClass() == TypeClass_DOUBLE) return {number(v, argument), std::nullopt};
+    return {std::nullopt, word(v, argument)};
+}
+
 std::vector<entry> optional_range(const Any& a, const char* argument) {
     if (a.getValueTypeClass() == TypeClass_VOID) return {};
     range r;

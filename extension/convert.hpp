@@ -43,6 +43,14 @@ entry cell_entry(const css::uno::Any& cell);
 // a blank cell given as a one-cell range).
 std::optional<double> number(const css::uno::Any& a, const char* argument);
 std::optional<std::string> word(const css::uno::Any& a, const char* argument);
+// An optional switch that takes TRUE/FALSE or a word naming the choice:
+// booleans come as 1 or 0 (Calc passes them as numbers), text as the word;
+// both empty when omitted.
+struct number_or_word {
+    std::optional<double> number;
+    std::optional<std::string> word;
+};
+number_or_word switch_value(const css::uno::Any& a, const char* argument);
 // An optional range argument (scores): empty when omitted.
 std::vector<entry> optional_range(const css::uno::Any& a, const char* argument);
 // An optional range of names (labels): the text of each cell, numbers as

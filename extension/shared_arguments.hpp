@@ -43,6 +43,11 @@ inline constexpr argument goal{
     "\"high\" when successes are good (units within specification), \"low\" when the counts are defects, so that "
     "a lower rate is the better one.",
     "\"high\""};
+inline constexpr argument one_rate_method{
+    "method",
+    "Leave empty or \"wilson\" (recommended). \"exact\" (Clopper-Pearson: never too narrow, often wider than "
+    "needed; the usual choice for demonstrating reliability), \"jeffreys\", or \"agresti-coull\".",
+    "\"wilson\""};
 inline constexpr argument labels{
     "labels",
     "Cells with the group names (oven, line, lot), the same size as the count ranges; messages then name the "

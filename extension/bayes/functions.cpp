@@ -4,6 +4,7 @@
 #include "../addin.hpp"
 #include "../guard.hpp"
 #include "keywords.hpp"
+#include "prior.hpp"
 #include "tallyrates/bayes.hpp"
 #include "tallyrates/pairwise.hpp"
 #include "tallyrates/text.hpp"
@@ -11,12 +12,6 @@
 namespace tallyrates::uno {
 
 namespace {
-
-bayes::prior prior_of(const Any& a, const Any& b) {
-    const bayes::prior defaults;
-    return bayes::checked({convert::number(a, "prior_a").value_or(defaults.a),
-                           convert::number(b, "prior_b").value_or(defaults.b)});
-}
 
 bayes::beta_law law_of(const caller& document, const cells& successes, const cells& attempts, double i,
                        const Any& prior_a, const Any& prior_b) {

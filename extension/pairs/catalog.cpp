@@ -60,12 +60,7 @@ constexpr std::array pairs_args{
              "\"holm\""},
     shared::labels};
 
-constexpr argument one_rate_method{
-    "method",
-    "Leave empty or \"wilson\" (recommended). \"exact\" (Clopper-Pearson: never too narrow, often wider than "
-    "needed; the usual choice for demonstrating reliability), \"jeffreys\", or \"agresti-coull\".",
-    "\"wilson\""};
-constexpr std::array one_args{successes, attempts, i, level, one_rate_method};
+constexpr std::array one_args{successes, attempts, i, level, shared::one_rate_method};
 
 constexpr std::array table{
     function{"diff", "RATES.DIFF",

@@ -28,11 +28,6 @@ pairwise::interval_options interval_options(const Any& level, const Any& method,
     return o;
 }
 
-one_rate::method one_rate_method(const Any& method) {
-    return arguments::keyword_or(convert::word(method, "method"), one_rate::method::wilson, keywords::one_rate_method,
-                                 "method");
-}
-
 // "95 % each" or "95 % jointly, Bonferroni": what the interval columns hold.
 std::string level_words(double level, adjust::simultaneous joint) {
     const std::string pct = format_short(level * 100) + " %";
@@ -139,7 +134,7 @@ double rates::oneLow(const caller& document, const cells& successes, const cells
                      const Any& level, const Any& method) {
     return guarded([&] {
         const auto c = convert::counts_of(document, successes, attempts);
-        return finite(one_rate::bounds(c, i, level_of(level), one_rate_method(method)).low);
+        return finite(one_rate::bounds(c, i, level_of(level), keywords::one_rate_method_or_wilson(convert::word(method, "method"))).low);
     });
 }
 
@@ -147,7 +142,7 @@ double rates::oneHigh(const caller& document, const cells& successes, const cell
                       const Any& level, const Any& method) {
     return guarded([&] {
         const auto c = convert::counts_of(document, successes, attempts);
-        return finite(one_rate::bounds(c, i, level_of(level), one_rate_method(method)).high);
+        return finite(one_rate::bounds(c, i, level_of(level), keywords::one_rate_method_or_wilson(convert::word(method, "method"))).high);
     });
 }
 

@@ -4,6 +4,8 @@
 #pragma once
 
 #include <array>
+#include <optional>
+#include <string>
 #include <utility>
 
 #include "tallyrates/adjust.hpp"
@@ -65,5 +67,10 @@ inline constexpr std::array<word<one_rate::method>, 4> one_rate_method{{
     {"jeffreys", one_rate::method::jeffreys},
     {"agresti-coull", one_rate::method::agresti_coull},
 }};
+
+// The interval method of RATES.ONE.LOW/HIGH and RATES.PLAN.WIDTH; Wilson when omitted.
+inline one_rate::method one_rate_method_or_wilson(const std::optional<std::string>& text) {
+    return arguments::keyword_or(text, one_rate::method::wilson, one_rate_method, "method");
+}
 
 }  // namespace tallyrates::keywords

@@ -11,6 +11,8 @@
 
 #include "catalog.hpp"
 #include "omnibus/keywords.hpp"
+#include "pairs/keywords.hpp"
+#include "planning/keywords.hpp"
 #include "tallyrates/omnibus.hpp"
 
 using namespace tallyrates;
@@ -81,6 +83,16 @@ TEST(Catalog, EveryKeywordIsListedInTheDescriptions) {
     const auto* same = catalog::by_programmatic("sameP");
     for (const auto& w : keywords::omnibus_method)
         EXPECT_NE(same->arguments[2].description.find("\"" + std::string(w.text) + "\""), std::string::npos) << w.text;
+    const auto* power = catalog::by_programmatic("planPower");
+    ASSERT_NE(power, nullptr);
+    for (const auto& w : keywords::correction)
+        EXPECT_NE(power->arguments[4].description.find("\"" + std::string(w.text) + "\""), std::string::npos)
+            << w.text;
+    const auto* width = catalog::by_programmatic("planWidth");
+    ASSERT_NE(width, nullptr);
+    for (const auto& w : keywords::one_rate_method)
+        EXPECT_NE(width->arguments[3].description.find("\"" + std::string(w.text) + "\""), std::string::npos)
+            << w.text;
 }
 
 TEST(Keywords, CaseInsensitiveAndListsTheAllowedWords) {

@@ -1,0 +1,120 @@
+// planning/catalog.cpp - wizard texts of the planning family (functions.md,
+// "Planning more runs"): how many more attempts a demonstration test, a
+// precise rate, a comparison of two groups or a pilot needs. Written in the
+// words of reliability and quality work. Wording is ours.
+#include <array>
+
+#include "../catalog.hpp"
+#include "../shared_arguments.hpp"
+
+namespace tallyrates::catalog {
+
+namespace {
+
+#define WHY_502_PLAN                                                                                            \
+    " Err:502: an argument is outside what its text allows (rates from 0 to 1, probabilities strictly between " \
+    "0 and 1, whole numbers where asked)."
+#define WHY_523_PLAN " Err:523: more than 10^9 attempts would be needed, or the target cannot be met at all"
+
+constexpr argument demo_rate{
+    "rate",
+    "The success rate (reliability) to demonstrate, as a fraction: 0.99 means at least 99 % of units within "
+    "specification. Above 0 and below 1.",
+    ""};
+constexpr argument demo_confidence{
+    "confidence",
+    "Confidence of the demonstration, between 0 and 1: at 0.95, a process whose true rate is below `rate` "
+    "passes the test at most 5 times in 100.",
+    ""};
+constexpr argument failures{
+    "failures",
+    "Failures the test plan allows: 0 for a zero-failure (success-run) plan, the shortest; allowing 1 or 2 "
+    "costs more units, but one stray failure no longer sinks the test. A whole number.",
+    "0"};
+constexpr std::array demo_args{demo_rate, demo_confidence, failures};
+
+constexpr argument expected_rate{
+    "rate",
+    "The rate you expect the tally to show, as a fraction (0.9 for 90 %). Unsure? 0.5 is the cautious guess: "
+    "it needs the most attempts for a given precision.",
+    ""};
+constexpr argument half_width{
+    "half_width",
+    "Precision wanted, as a fraction: 0.02 for plus or minus 2 percentage points (half the interval's width). "
+    "Above 0 and below 1.",
+    ""};
+constexpr std::array width_args{expected_rate, half_width, shared::level, shared::one_rate_method};
+
+constexpr argument rate_1{
+    "rate_1", "The rate you expect in one group (today's line, the current supplier), as a fraction: 0.90.", ""};
+constexpr argument rate_2{
+    "rate_2",
+    "The rate in the other group that should be told apart from rate_1 (the improved line), as a fraction: 0.95. "
+    "The closer the two, the more attempts.",
+    ""};
+constexpr argument power{
+    "power",
+    "Chance of detecting the difference if it is real, between 0 and 1: 0.8 misses a real difference 1 time in "
+    "5; choose 0.9 or 0.95 when missing it is costly.",
+    "0.8"};
+constexpr argument alpha{
+    "alpha",
+    "Chance of a false alarm (calling the groups different when they are not), between 0 and 1, two-sided.",
+    "0.05"};
+constexpr argument correction{
+    "correction",
+    "FALSE or \"none\": sized for the comparison RATES.PAIR.P makes by default (the score test, no "
+    "correction). TRUE or \"continuity\": sized for Fisher's exact test (RATES.PAIR.P with \"exact\"), more "
+    "cautious, by the continuity correction of Fleiss, Tytun & Ury (1980); it adds attempts.",
+    "FALSE (\"none\"), to match RATES.PAIR.P's default test"};
+constexpr std::array power_args{rate_1, rate_2, power, alpha, correction};
+
+constexpr std::array ahead_args{
+    shared::successes,
+    shared::attempts,
+    argument{"i", "Position of the group still proving itself (the pilot oven, the new process) in the range.", ""},
+    argument{"j", "Position of the group it must beat (the established line), counted the same way.", ""},
+    argument{"confidence",
+             "How sure you want to be that group i has the higher rate, between 0 and 1: 0.95 for 95 in 100 "
+             "(as RATES.POST.AHEAD gives it).",
+             ""},
+    shared::prior_a,
+    shared::prior_b};
+
+constexpr std::array table{
+    function{"planDemo", "RATES.PLAN.DEMO",
+             "Units to test in a demonstration test: if no more than `failures` of them fail, the rate is shown "
+             "to be at least `rate` with the chosen confidence. With no failure allowed (a zero-failure plan), "
+             "0.99 at 95 % confidence takes 299 units in a row." WHY_502_PLAN WHY_523_PLAN
+             " (a rate of 1: 100 % can never be shown by testing).",
+             demo_args},
+    function{"planWidth", "RATES.PLAN.WIDTH",
+             "Attempts needed so that the confidence interval of RATES.ONE.LOW and RATES.ONE.HIGH is no wider "
+             "than plus or minus half_width, if the rate comes out as expected: the smallest such number (counts "
+             "are whole, so a few slightly larger numbers can give an interval a hair wider)." WHY_502_PLAN
+                 WHY_523_PLAN " (half_width 0).",
+             width_args},
+    function{"planPower", "RATES.PLAN.POWER",
+             "Attempts needed in each of two groups (lines, ovens, suppliers) for a real difference between "
+             "rate_1 and rate_2 to show up as significant (two-sided) with the chosen power. Fleiss, Levin & "
+             "Paik (2003): 0.10 against 0.15 needs 686 per group at the defaults, 726 with the continuity "
+             "correction." WHY_502_PLAN WHY_523_PLAN " (equal rates, or power 1).",
+             power_args},
+    function{"planAhead", "RATES.PLAN.AHEAD",
+             "Further attempts group i must complete, every one a success, before its rate is above group j's "
+             "with probability `confidence` (RATES.POST.AHEAD): how long a perfect pilot must keep going before "
+             "it is trusted over the established line. 0 when it already is; after a failure, enter it and read "
+             "the new answer. Err:502: RATES.CHECK on the same ranges with the same i and j checks the counts "
+             "and positions; confidence must lie strictly between 0 and 1, priors above 0." WHY_523_PLAN
+             " (confidence 1, or group j practically perfect).",
+             ahead_args},
+};
+
+#undef WHY_502_PLAN
+#undef WHY_523_PLAN
+
+}  // namespace
+
+std::span<const function> planning_functions() { return table; }
+
+}  // namespace tallyrates::catalog

@@ -1,0 +1,60 @@
+// planning/functions.cpp - the worksheet methods of the planning family
+// (RATES.PLAN.*). Each converts its arguments, calls the engine and returns,
+// inside `guarded`.
+#include "../addin.hpp"
+#include "../guard.hpp"
+#include "../bayes/prior.hpp"
+#include "../pairs/keywords.hpp"
+#include "keywords.hpp"
+#include "tallyrates/bayes.hpp"
+#include "tallyrates/pairwise.hpp"
+#include "tallyrates/planning.hpp"
+
+namespace tallyrates::uno {
+
+namespace {
+
+double attempts_of(std::int64_t n) { return static_cast<double>(n); }
+
+// TRUE/FALSE arrive as 1/0; the words name the same two choices.
+planning::correction correction_of(const Any& a) {
+    const auto v = convert::switch_value(a, "correction");
+    if (v.number) return planning::correction_from_number(*v.number);
+    return arguments::keyword_or(v.word, planning::correction::none, keywords::correction, "correction");
+}
+
+}  // namespace
+
+double rates::planDemo(const caller&, double rate, double confidence, const Any& failures) {
+    return guarded([&] {
+        const auto allowed = arguments::whole_or(convert::number(failures, "failures"), 0, 0, 1e9, "failures");
+        return attempts_of(planning::demonstration(rate, confidence, allowed));
+    });
+}
+
+double rates::planWidth(const caller&, double rate, double half_width, const Any& level, const Any& method) {
+    return guarded([&] {
+        return attempts_of(planning::width(rate, half_width, convert::number(level, "level").value_or(0.95),
+                                           keywords::one_rate_method_or_wilson(convert::word(method, "method"))));
+    });
+}
+
+double rates::planPower(const caller&, double rate_1, double rate_2, const Any& power, const Any& alpha,
+                        const Any& correction) {
+    return guarded([&] {
+        return attempts_of(planning::power(rate_1, rate_2, convert::number(power, "power").value_or(0.8),
+                                           convert::number(alpha, "alpha").value_or(0.05), correction_of(correction)));
+    });
+}
+
+double rates::planAhead(const caller& document, const cells& successes, const cells& attempts, double i, double j,
+                        double confidence, const Any& prior_a, const Any& prior_b) {
+    return guarded([&] {
+        const auto c = convert::counts_of(document, successes, attempts);
+        pairwise::distinct(c.at_position(i, "i"), c.at_position(j, "j"));
+        const auto p = prior_of(prior_a, prior_b);
+        return attempts_of(planning::ahead(bayes::posterior(c, i, p), bayes::posterior(c, j, p), confidence));
+    });
+}
+
+}  // namespace tallyrates::uno
