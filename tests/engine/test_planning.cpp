@@ -94,7 +94,7 @@ TEST(Planning, ReferenceRows) {
         ++checked[what];
     }
     EXPECT_EQ(checked["plan_demo"], 10);
-    EXPECT_EQ(checked["plan_width"], 32);
+    EXPECT_EQ(checked["plan_width"], 36);
     EXPECT_EQ(checked["plan_power"], 12);
     EXPECT_EQ(checked["plan_power_pooled"], 5);
     EXPECT_EQ(checked["plan_ahead"], 7);

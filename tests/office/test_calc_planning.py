@@ -43,7 +43,7 @@ class Planning(SheetCase):
             self.assertEqual(self.value_of("H1"), row["value"],
                              "%s %s (%s)" % (text, row["quantity"], row["source"]))
             checked += 1
-        self.assertEqual(checked, 10 + 32 + 12 + 7)
+        self.assertEqual(checked, 10 + 36 + 12 + 7)
 
     def test_defaults_and_switches(self):
         # Published: Fleiss, Levin & Paik (2003), 686 per group; 726 with the

@@ -13,7 +13,7 @@
 //   of RATES.ONE.LOW/HIGH at the expected count x = round(rate n) has
 //   half-width (high - low) / 2 at most E. Widths of whole counts saw-tooth
 //   in n (Brown, Cai & DasGupta 2001, Stat Sci 16:101), so n is searched
-//   directly: a bisection on a smooth lower envelope (the narrower of the
+//   directly: a root search (TOMS 748) on a smooth lower envelope (the narrower of the
 //   intervals at the real counts rate n -+ 1/2: a half-width is largest
 //   mid-range and falls towards either end, so no whole count within 1/2 of
 //   rate n gives a narrower one) finds the first n where the target is
