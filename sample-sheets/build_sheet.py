@@ -46,6 +46,24 @@ RESULTS = [
 # over all pairs. Seven rows of counts make 21 pairs: 22 rows with the header.
 PAIRS_TOP, PAIRS_ROWS = 41, 22
 
+# How many more runs: below the pairs. G68 is an input (the improvement worth
+# detecting); the best air oven is found from the rates in D5:D7.
+PLAN_TOP = 64
+BEST_AIR = "MATCH(MAX($D$5:$D$7);$D$5:$D$7;0)"
+PLAN = [  # label, formula, number format
+    ("Zero-failure demonstration of the plant target (B3) at 95 % confidence: boards in a row",
+     "=RATES.PLAN.DEMO($B$3;0.95)", "0"),
+    ("The same demonstration allowing 1 failing board", "=RATES.PLAN.DEMO($B$3;0.95;1)", "0"),
+    ("Further boards, all passing, before the pilot is ahead of the best air oven with probability 0.95",
+     "=RATES.PLAN.AHEAD(%s;4;%s;0.95)" % (COUNTS, BEST_AIR), "0"),
+    ("Smallest improvement over the best air oven worth detecting (type your own)", None, "0.0%"),
+    ("Boards per oven to detect that improvement (power 0.8, 5 % false alarms)",
+     "=RATES.PLAN.POWER(INDEX($D$5:$D$7;%s);MIN(1;INDEX($D$5:$D$7;%s)+G%d))" % (BEST_AIR, BEST_AIR, PLAN_TOP + 4),
+     "0"),
+    ("Boards for the best air oven's pass rate to within ±1 point (95 % Wilson interval), in all",
+     "=RATES.PLAN.WIDTH(INDEX($D$5:$D$7;%s);0.01)" % BEST_AIR, "0"),
+]
+
 
 def heading(cell, text):
     cell.setString(text)
@@ -217,6 +235,22 @@ def main():
         cell("A%d:G%d" % (PAIRS_TOP, PAIRS_TOP)).CharWeight = 150
         cell("C%d:G%d" % (PAIRS_TOP, PAIRS_TOP)).HoriJustify = 3  # RIGHT, over the numbers
         cell("A%d:G%d" % (PAIRS_TOP, bottom)).IsTextWrapped = True
+        heading(cell("A%d" % PLAN_TOP), "How many more boards? Planning the next runs")
+        cell("A%d" % PLAN_TOP).IsTextWrapped = False
+        # One line per answer: the label runs over the empty cells B to F,
+        # the answer stands in G.
+        for k, (label, formula, fmt) in enumerate(PLAN):
+            r = PLAN_TOP + 1 + k
+            cell("A%d" % r).setString(label)
+            if formula:
+                cell("G%d" % r).setFormula(formula)
+            else:
+                cell("G%d" % r).setValue(0.02)
+                cell("G%d" % r).CellBackColor = 0xFFF2CC  # an input: shaded
+            cell("G%d" % r).NumberFormat = number_format(doc, fmt)
+        cell("A%d" % (PLAN_TOP + len(PLAN) + 1)).setString(
+            "Planning sizes assume the process stays as it was during these runs; a size met is not acceptance of "
+            "the process. Follow the standards that apply and have test plans reviewed.")
         # The check sentence wraps in a merged cell across the page; the
         # report's "why" overflows into the empty cells to its right.
         check = cell("B14:E14")

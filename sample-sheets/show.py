@@ -52,6 +52,13 @@ def main():
                 print("  %-22s %-22s %17s %19s %20s %14s %16s" % tuple(row))
             errors += ["%s%d" % (c, r) for c, shown in zip("ABCDEFG", row) if shown.startswith("Err:")]
         errors += ["%s%d" % (c, r) for c in "FGHKLM" for r in range(5, 12) if lo.cell_text(cell("%s%d" % (c, r))).startswith("Err:")]
+        print()
+        print("  " + cell("A64").getString())
+        for r in range(65, 71):
+            shown = lo.cell_text(cell("G%d" % r))
+            print("  %-100s %s" % (cell("A%d" % r).getString(), shown))
+            if shown.startswith("Err:") or not shown:
+                errors.append("G%d" % r)
         curves = doc.Sheets.getByName("Posterior curves")
         print()
         print("  " + curves.getCellRangeByName("A25").getString())

@@ -142,6 +142,13 @@ class SampleWorkbook(SheetCase):
         errors = [(c, k) for k in range(end.EndRow + 1) for c in range(end.EndColumn + 1)
                   if trial.getCellByPosition(c, k).getError()]
         self.assertEqual(errors, [])
+        # The planning block: the pilot's 14 of 14 against oven A's 286 of 300
+        # needs 50 more passing boards (plan_ahead row of omnibus.csv, Cook's
+        # sum in 50-digit mpmath); the zero-failure demonstration of 95 % at
+        # 95 % confidence takes ln(0.05) / ln(0.95) -> 59 boards (success-run
+        # formula, common practice, no single source).
+        self.assertEqual(trial.getCellRangeByName("G67").getValue(), 50)
+        self.assertEqual(trial.getCellRangeByName("G65").getValue(), 59)
 
 
 if __name__ == "__main__":
