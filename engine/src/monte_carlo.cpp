@@ -15,10 +15,26 @@
 // where probabilities fall below 1e-20 of the mode: far below the 2^-53
 // resolution of the uniforms, so trimming changes no draw that matters.
 //
-// Work unit: about 8 ns; a variate drawn counts 8, a table entry built 4.
+// Work unit: about 8 ns; a variate drawn counts 8, a table entry built 4, a
+// term computed 2 (16 for the probability ordering).
+//
+// Bounds (issue 11): before anything is built, the run is planned from the
+// counts alone: the term tables (at most detail::max_term_values values),
+// the variates, and the cumulative tables, built once per (group, successes
+// placed) visited while they fit the per-thread cache of 2,000,000 values,
+// rebuilt when they do not. A plan above the cap is refused at once, naming
+// how many draws would fit; the automatic route asks whether 1,000 draws fit.
+// While running, the threads add their work to one shared counter, a safety
+// net at 1.5 times the cap for a plan that was too optimistic: the outcome
+// of an accepted plan, and every refusal, depend on the counts only, never
+// on the thread count. Memory: term tables at most 48 MB, the cache 16 MB
+// per thread, the index of cached tables 4 bytes per slot (at most
+// 2,000,000 + 3 G slots).
 #include <algorithm>
+#include <atomic>
 #include <boost/math/distributions/binomial.hpp>
 #include <cmath>
+#include <numbers>
 #include <thread>
 
 #include "detail/hypergeometric.hpp"
@@ -40,6 +56,60 @@ constexpr std::size_t table_memory_cap = 2'000'000;  // doubles cached per threa
 constexpr std::uint64_t variate_work = 8;
 constexpr std::uint64_t table_entry_work = 4;
 constexpr std::uint64_t table_work = 24;  // fixed cost of starting a table
+// Slots of the index of cached tables: about 1,000,000 + G, whatever G.
+constexpr double index_slots = 1e6;
+// The shared counter may run past the planned cap by this factor before the
+// run is stopped (a safety net for a plan that underestimated).
+constexpr double safety_factor = 1.5;
+// Trimmed at 1e-20 of the mode, a hypergeometric law keeps about +-9.6
+// standard deviations.
+constexpr double table_half_width_sd = 9.6;
+
+// Work of the run on one thread, planned from the counts alone.
+struct plan {
+    double setup = 0;           // term tables
+    double per_draw = 0;        // variates, and tables rebuilt when the cache cannot hold them
+    double tables_once = 0;     // tables built the first time their (group, successes) is visited
+    double total(double draws) const { return setup + tables_once + per_draw * draws; }
+    // The most draws that fit `cap`.
+    double draws_within(double cap) const { return per_draw > 0 ? (cap - setup - tables_once) / per_draw : 0; }
+};
+
+plan plan_of(const table& t, ordering o, double draws) {
+    plan out;
+    out.setup = detail::term_values(t) * (o == ordering::probability ? 16.0 : 2.0);
+    const double N = static_cast<double>(t.attempts), S = static_cast<double>(t.successes), F = N - S;
+    const std::size_t G = t.groups();
+    double placed = 0, cached = 0, build_cost = 0, lookups = 0, one_of_each = 0;
+    for (std::size_t k = 0; k + 1 < G; ++k) {
+        const double n = static_cast<double>(t.n[k]), rest = N - placed;
+        const double sd_s = N > 1 ? std::sqrt(placed * (N - placed) * S * F / (N * N * (N - 1))) : 0.0;
+        const double sd_x = rest > 1 ? std::sqrt(n * (S / N) * (F / N) * (rest - n) / (rest - 1)) : 0.0;
+        // Distinct successes-placed values met in `draws` draws: about
+        // M (1 - e^(-draws / M)) for a near-normal law, M = sqrt(2 pi e) sd its
+        // effective number of values (the exponential of its entropy).
+        const double spread = std::sqrt(2 * std::numbers::pi * std::numbers::e) * sd_s + 1;
+        const double states = spread * -std::expm1(-draws / spread);
+        const double size = std::min(n + 1, 2 * table_half_width_sd * sd_x + 1);
+        cached += states * size;
+        build_cost += states * (table_work + table_entry_work * size);
+        one_of_each += table_work + table_entry_work * size;
+        lookups += 1;
+        placed += n;
+    }
+    out.per_draw = lookups * variate_work;
+    if (cached <= table_memory_cap) {
+        out.tables_once = build_cost;
+    } else {
+        // The cache is flushed whole when full and refilled, so it holds half
+        // its capacity on average: a share 1 - cap / (2 cached) of the
+        // lookups (one per group and draw) builds its table again.
+        const double miss = 1 - table_memory_cap / (2 * cached);
+        out.tables_once = build_cost * (1 - miss);
+        out.per_draw += miss * one_of_each;
+    }
+    return out;
+}
 
 struct cdf_ref {
     std::int64_t first = 0;
@@ -55,11 +125,12 @@ public:
     sampler(const table& t, const std::vector<detail::term_row>& terms) : t_(t), terms_(terms) {
         const std::size_t G = t.groups();
         lo_.resize(G);
-        index_.resize(G);
+        start_.assign(G + 1, 0);
         const double N = static_cast<double>(t.attempts), S = static_cast<double>(t.successes);
-        // Index memory stays bounded (about 16 MB) however many groups there are.
-        const double half_cap = std::max(64.0, 1e6 / static_cast<double>(G));
+        // One flat index of about index_slots + 3 G slots, whatever G.
+        const double half_cap = std::max(1.0, index_slots / static_cast<double>(G));
         std::int64_t placed = 0;
+        std::size_t slots = 0;
         for (std::size_t k = 0; k + 1 < G; ++k) {
             const double P = static_cast<double>(placed);
             const double mean = P * S / N;
@@ -68,9 +139,12 @@ public:
             const double half = std::min(40 * sd + 2, half_cap);
             lo_[k] = std::max(feasible.first, static_cast<std::int64_t>(std::floor(mean - half)));
             const std::int64_t top = std::min(feasible.last, static_cast<std::int64_t>(std::ceil(mean + half)));
-            index_[k].assign(static_cast<std::size_t>(std::max<std::int64_t>(0, top - lo_[k] + 1)), -1);
+            start_[k] = slots;
+            slots += static_cast<std::size_t>(std::max<std::int64_t>(0, top - lo_[k] + 1));
             placed += t.n[k];
         }
+        start_[G - 1] = start_[G] = slots;
+        index_.assign(slots, -1);
     }
 
     // Statistic of one random table.
@@ -113,24 +187,24 @@ private:
     const double* table_for(std::size_t k, std::int64_t s, std::int64_t placed, std::int64_t& first,
                             std::uint32_t& size) {
         const std::int64_t at = s - lo_[k];
-        if (at < 0 || at >= static_cast<std::int64_t>(index_[k].size())) {
+        if (at < 0 || at >= static_cast<std::int64_t>(start_[k + 1] - start_[k])) {
             build(k, s, placed, scratch_, first);  // outside the window: not cached
             size = static_cast<std::uint32_t>(scratch_.size());
             return scratch_.data();
         }
-        auto& slot = index_[k][static_cast<std::size_t>(at)];
+        auto& slot = index_[start_[k] + static_cast<std::size_t>(at)];
         if (slot < 0) {
             build(k, s, placed, pmf_, first);
             if (pool_.size() + pmf_.size() > table_memory_cap) {
                 // Memory cap reached: forget every cached table and start again
                 // (tables are rebuilt on demand; memory stays bounded).
-                for (auto& level : index_) std::fill(level.begin(), level.end(), -1);
+                std::fill(index_.begin(), index_.end(), -1);
                 pool_.clear();
                 refs_.clear();
             }
             refs_.push_back({first, static_cast<std::uint32_t>(pool_.size()), static_cast<std::uint32_t>(pmf_.size())});
             pool_.insert(pool_.end(), pmf_.begin(), pmf_.end());
-            slot = static_cast<std::int64_t>(refs_.size()) - 1;
+            slot = static_cast<std::int32_t>(refs_.size()) - 1;
         }
         const cdf_ref& ref = refs_[static_cast<std::size_t>(slot)];
         first = ref.first;
@@ -141,7 +215,8 @@ private:
     const table& t_;
     const std::vector<detail::term_row>& terms_;
     std::vector<std::int64_t> lo_;
-    std::vector<std::vector<std::int64_t>> index_;
+    std::vector<std::size_t> start_;   // group k's slots: index_[start_[k] .. start_[k + 1])
+    std::vector<std::int32_t> index_;  // -1, or the cached table's entry in refs_ (at most 2,000,000)
     std::vector<cdf_ref> refs_;
     std::vector<double> pool_, pmf_, scratch_;
 };
@@ -152,16 +227,25 @@ struct tally {
     std::uint64_t work = 0;
 };
 
+// Work of every thread of one run: each adds what it did every 256 draws.
+struct shared_work {
+    std::atomic<std::uint64_t> total{0};
+    std::uint64_t cap = 0;
+};
+
 // The blocks id, id + threads, ... of the draws: block b uses the stream of
-// the seed jumped b times. Stops once its work passes the cap (checked after
-// every draw, a compare, so a runaway request stops within one draw of it).
+// the seed jumped b times. Stops once the work of all threads passes the
+// cap (on one thread, checked after every draw, so that drawing stops at a
+// point fixed by the inputs; with more, every 256 draws).
 tally run_blocks(const table& t, const std::vector<detail::term_row>& terms, double thr, std::int64_t draws,
-                 std::uint64_t seed, unsigned id, unsigned threads, std::uint64_t work_cap) {
+                 std::uint64_t seed, unsigned id, unsigned threads, shared_work& work) {
     tally out;
     sampler smp(t, terms);
     detail::xoshiro256ss rng(seed);
     std::int64_t at = 0;  // jumps applied to rng
+    std::uint64_t reported = 0;
     const std::int64_t blocks = (draws + block_size - 1) / block_size;
+    const std::int64_t every = threads == 1 ? 1 : 256;
     for (std::int64_t b = id; b < blocks; b += threads) {
         for (; at < b; ++at) rng.jump();
         detail::xoshiro256ss stream = rng;
@@ -169,12 +253,17 @@ tally run_blocks(const table& t, const std::vector<detail::term_row>& terms, dou
         for (std::int64_t d = b * block_size; d < end; ++d) {
             out.extreme += smp.draw(stream) >= thr;
             ++out.done;
-            if (smp.work > work_cap) {
-                out.work = smp.work;
-                return out;
+            if (out.done % every == 0) {
+                const std::uint64_t total = work.total.fetch_add(smp.work - reported) + (smp.work - reported);
+                reported = smp.work;
+                if (total > work.cap) {
+                    out.work = smp.work;
+                    return out;
+                }
             }
         }
     }
+    work.total.fetch_add(smp.work - reported);
     out.work = smp.work;
     return out;
 }
@@ -188,7 +277,9 @@ tally run_all(const table& t, ordering o, std::int64_t draws, std::uint64_t seed
     const std::int64_t blocks = (draws + block_size - 1) / block_size;
     threads = std::max(1u, std::min<unsigned>(threads, static_cast<unsigned>(std::min<std::int64_t>(blocks, 64))));
     std::vector<tally> part(threads);
-    auto worker = [&](unsigned id) { part[id] = run_blocks(t, terms, thr, draws, seed, id, threads, work_cap); };
+    shared_work work;
+    work.cap = work_cap;
+    auto worker = [&](unsigned id) { part[id] = run_blocks(t, terms, thr, draws, seed, id, threads, work); };
     if (threads == 1) {
         worker(0);
     } else {
@@ -211,18 +302,33 @@ monte_carlo_outcome monte_carlo_p(const table& t, ordering o, std::int64_t draws
                                   unsigned threads, std::uint64_t work_cap, bool fit_to_work) {
     monte_carlo_outcome out;
     out.draws = draws;
-    const double planned = static_cast<double>(draws) * static_cast<double>(t.groups()) * variate_work;
-    if (!fit_to_work && planned > static_cast<double>(work_cap))
+    const double cap = static_cast<double>(work_cap);
+    if (detail::term_values(t) > detail::max_term_values)
+        throw budget_exceeded("Monte Carlo would need tables of " + format_number(detail::term_values(t)) +
+                              " values for counts this large, more than memory allows; counts this large suit "
+                              "the chi-square route.");
+    // Refusals foreseen from the plan, before anything is built: the
+    // automatic route needs at least 1,000 draws within its cap.
+    const plan p = plan_of(t, o, static_cast<double>(draws));
+    if (fit_to_work && plan_of(t, o, 1000).total(1000) > cap)
+        throw budget_exceeded("Monte Carlo cannot make 1,000 draws within the time budget for counts this large.");
+    if (!fit_to_work && p.total(static_cast<double>(draws)) > cap) {
+        const double fit = std::floor(p.draws_within(cap));
         throw budget_exceeded("Monte Carlo with " + format_number(static_cast<double>(draws)) + " draws over " +
-                              std::to_string(t.groups()) + " groups needs " + format_number(planned) +
-                              " steps, more than the cap of " + format_number(static_cast<double>(work_cap)) + ".");
+                              std::to_string(t.groups()) + " groups needs about " +
+                              format_number(p.total(static_cast<double>(draws))) + " steps, more than the cap of " +
+                              format_number(cap) + " (about 5 s)" +
+                              (fit >= 1000 ? "; about " + format_number(fit) + " draws fit" : "") + ".");
+    }
     if (t.all_alike()) {
         // Only one table has these margins: every draw equals the observed one.
         out.extreme = draws;
     } else {
         // Fitting draws to the work cap stops at a point fixed by the inputs
         // only if blocks run in order: one thread.
-        const tally sum = run_all(t, o, draws, seed, fit_to_work ? 1 : threads, work_cap);
+        // Asked by name, the plan fitted: the shared counter is only a safety net.
+        const auto limit = fit_to_work ? work_cap : static_cast<std::uint64_t>(safety_factor * cap);
+        const tally sum = run_all(t, o, draws, seed, fit_to_work ? 1 : threads, limit);
         out.extreme = sum.extreme;
         out.work = sum.work;
         if (fit_to_work) {
@@ -231,8 +337,8 @@ monte_carlo_outcome monte_carlo_p(const table& t, ordering o, std::int64_t draws
                 throw budget_exceeded("Monte Carlo fits only " + format_number(static_cast<double>(draws)) +
                                       " draws into the time budget for counts this large.");
         } else if (sum.done < draws) {
-            throw budget_exceeded("Monte Carlo needed more than " + format_number(static_cast<double>(work_cap)) +
-                                  " steps.");
+            throw budget_exceeded("Monte Carlo needed more than " + format_number(static_cast<double>(limit)) +
+                                  " steps, beyond its plan; ask for fewer draws.");
         }
     }
     const double B = static_cast<double>(draws), e = static_cast<double>(out.extreme);

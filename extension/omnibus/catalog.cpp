@@ -26,7 +26,8 @@ constexpr argument method{
     "budget, else Monte Carlo"};
 constexpr argument draws{"draws",
                          "How many random tables \"montecarlo\" draws (and \"auto\" when it simulates), at most "
-                         "10,000,000. More draws, a steadier p-value, a slower cell.",
+                         "10,000,000 and at most what about 5 s of work allows: Err:523 at once beyond that, the "
+                         "report saying how many fit. More draws, a steadier p-value, a slower cell.",
                          "100000"};
 constexpr argument seed{"seed",
                         "Whole number that fixes the random tables: the same seed gives the same p-value on every "

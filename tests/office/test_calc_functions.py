@@ -56,7 +56,7 @@ class ReferenceValues(SheetCase):
             checked += 1
             # Clear for the next case (cases differ in size).
             self.sheet.getCellRangeByName("A1:C20").clearContents(1 | 4 | 16)
-        self.assertEqual(checked, 40 + 26 + 6)
+        self.assertEqual(checked, 40 + 41 + 6)  # chi-square, exact (incl. near ties and N = 300-480), trend
 
     def test_diff(self):
         # Arithmetic of the definition rate_i - rate_j (common practice, no source).

@@ -91,6 +91,20 @@ EXACT_CASES = [
     ("e_g6_pilot", [2, 3, 1, 4, 0, 5], [5, 5, 4, 6, 3, 6]),
     ("e_g2_unequal", [1, 9], [3, 30]),
     ("e_g4_ties", [1, 1, 2, 2], [4, 4, 4, 4]),
+    # Near ties (found by a search over random margins): another table with
+    # these margins has a statistic 2.4e-7 (X^2) or 3.2e-7 (G^2) relative
+    # below the observed one, between the tie tolerance (1e-7) and 1e-6, so
+    # a wider tolerance or a merge width above it changes the p-value.
+    ("e_near_tie_x2", [11, 14, 7, 8], [37, 48, 58, 59]),
+    ("e_near_tie_g2", [11, 19, 2, 11], [27, 56, 24, 47]),
+]
+
+# Larger tables (N = 300 to 480) for vector_exact: every table, in double
+# precision with numpy. Invented counts.
+VECTOR_EXACT_CASES = [
+    ("v_n300_g4", [31, 40, 36, 49], [75, 75, 75, 75]),
+    ("v_n480_g3", [70, 88, 61], [160, 160, 160]),
+    ("v_n420_g4_uneven", [9, 30, 41, 22], [40, 100, 180, 100]),
 ]
 
 TREND_CASES = [
@@ -162,9 +176,43 @@ def brute_force_exact(x, n):
     return {k: float(v) for k, v in r.items()}
 
 
+def vector_exact(x, n):
+    """Exact conditional p-values by listing every table with these margins
+    as numpy arrays: log-probabilities from scipy.special.gammaln, X^2 and
+    G^2 per table, the same tie rule as brute_force_exact, sums by math.fsum.
+    Written for these tests, sharing no code with the engine."""
+    from scipy.special import gammaln, xlogy
+    S, N = sum(x), sum(n)
+    F = N - S
+    grids = np.meshgrid(*[np.arange(max(0, a - F), min(a, S) + 1) for a in n[:-1]], indexing="ij")
+    T = np.stack([g.ravel() for g in grids], axis=1)
+    last = S - T.sum(axis=1)
+    ok = (last >= max(0, n[-1] - F)) & (last <= min(n[-1], S))
+    T = np.column_stack([T[ok], last[ok]]).astype(float)
+    na = np.array(n, float)
+    lchoose = lambda a, b: gammaln(a + 1) - gammaln(b + 1) - gammaln(a - b + 1)
+    logp = lchoose(na, T).sum(axis=1) - lchoose(float(N), float(S))
+    e1, e2 = na * S / N, na * F / N
+    x2 = (((T - e1) ** 2) / e1 + (((na - T) - e2) ** 2) / e2).sum(axis=1)
+    g2 = 2 * (xlogy(T, T / e1) + xlogy(na - T, (na - T) / e2)).sum(axis=1)
+    obs = np.flatnonzero((T == np.array(x, float)).all(axis=1))[0]
+    prob = np.exp(logp)
+    return {"exact": math.fsum(prob[x2 >= x2[obs] * (1 - 1e-7)]),
+            "exact_lr": math.fsum(prob[g2 >= g2[obs] * (1 - 1e-7) - 1e-12]),
+            "exact_prob": math.fsum(prob[logp <= logp[obs] + math.log1p(1e-7)])}
+
+
 def exact_rows(w):
+    for name, x, n in VECTOR_EXACT_CASES:
+        r = vector_exact(x, n)
+        for k in ("exact", "exact_lr", "exact_prob"):
+            w.writerow([name, " ".join(map(str, x)), " ".join(map(str, n)), k + "_p", fmt(r[k]),
+                        "vector_exact (numpy " + np.__version__ + ", scipy.special.gammaln; this file)"])
     for name, x, n in EXACT_CASES:
         r = brute_force_exact(x, n)
+        # The two enumerators, rational and numpy, must agree.
+        v = vector_exact(x, n)
+        assert all(abs(v[k] - r[k]) <= 1e-12 * r[k] for k in r), (name, r, v)
         for k in ("exact", "exact_lr", "exact_prob"):
             w.writerow([name, " ".join(map(str, x)), " ".join(map(str, n)), k + "_p", fmt(r[k]), BRUTE])
         if len(n) == 2:
@@ -187,6 +235,17 @@ def trend_rows(w):
         # Armitage's binomial-variance form differs by the factor N/(N-1) in
         # the variance: z_binomial = z_conditional * sqrt(N / (N - 1)).
         N = sum(n)
+        if name.startswith("t_armitage"):
+            # The paper's chi^2 (binomial variance) by its formula in exact
+            # fractions: T^2 / (p q (sum n s^2 - (sum n s)^2 / N)). It is
+            # 7.1927; the conditional form gives 7.1876; both print as 7.19.
+            X = sum(x)
+            T = sum(Fraction(si * xi) for si, xi in zip(s, x)) - Fraction(X, N) * sum(si * ni for si, ni in zip(s, n))
+            V = Fraction(X, N) * Fraction(N - X, N) * (sum(ni * si * si for si, ni in zip(s, n))
+                                                       - Fraction(sum(si * ni for si, ni in zip(s, n)) ** 2, N))
+            w.writerow([name, " ".join(map(str, x)), " ".join(map(str, n)), "trend_binomial_chi2", fmt(T * T / V),
+                        "Armitage (1955) chi^2 formula in exact fractions (this file); scores "
+                        + " ".join(map(str, s))])
         zb = r.zscore * math.sqrt(N / (N - 1))
         w.writerow([name, " ".join(map(str, x)), " ".join(map(str, n)), "trend_binomial_p",
                     fmt(scipy.stats.chi2.sf(zb * zb, 1)),

@@ -50,7 +50,7 @@ struct limits {
     std::uint64_t exact_work = 300'000'000;     // about 2 s, for "exact" asked by name
     std::uint64_t auto_exact_work = 8'000'000;   // about 60 ms
     std::int64_t max_draws = 10'000'000;
-    std::uint64_t monte_carlo_work = 1'200'000'000;  // about 10 s, for draws asked by name
+    std::uint64_t monte_carlo_work = 600'000'000;  // about 5 s, for draws asked by name (planned up front)
     std::uint64_t auto_monte_carlo_work = 12'000'000;  // about 100 ms (the two autos stay under 250 ms)
     std::size_t max_buckets = 600'000;  // live partial values in one level of the exact DP (about 15 MB)
     auto operator<=>(const limits&) const = default;
@@ -125,10 +125,12 @@ struct monte_carlo_outcome {
     double low = 0, high = 0;  // 95% Clopper-Pearson interval for the exact p-value
     std::uint64_t work = 0;
 };
-// Throws budget_exceeded when the draws need more work than work_cap. With
-// fit_to_work, draws is an upper limit instead: drawing stops (at a point
-// fixed by the inputs) once the work reaches the cap, and `draws` in the
-// outcome says how many were made (budget_exceeded below 1,000).
+// Throws budget_exceeded, before building anything, when the planned work
+// of the draws (monte_carlo.cpp) is above work_cap or the term tables would
+// not fit memory. With fit_to_work, draws is an upper limit instead: drawing
+// stops (at a point fixed by the inputs) once the work reaches the cap, and
+// `draws` in the outcome says how many were made (budget_exceeded, at once
+// when foreseen, below 1,000).
 monte_carlo_outcome monte_carlo_p(const table& t, ordering o, std::int64_t draws, std::uint64_t seed,
                                   unsigned threads, std::uint64_t work_cap, bool fit_to_work = false);
 

@@ -49,12 +49,18 @@ double term_function::operator()(std::size_t g, std::int64_t x) const {
     return 0.0;
 }
 
-std::vector<term_row> term_tables(const table& t, ordering o) {
-    const term_function term(t, o);
+double term_values(const table& t) {
     const std::int64_t S = t.successes, F = t.attempts - t.successes;
     double cells = 0;
     for (auto n : t.n) cells += static_cast<double>(std::min({n, S, F})) + 1;
-    if (cells > 5e7)
+    return cells;
+}
+
+std::vector<term_row> term_tables(const table& t, ordering o) {
+    const term_function term(t, o);
+    const std::int64_t S = t.successes, F = t.attempts - t.successes;
+    const double cells = term_values(t);
+    if (cells > max_term_values)
         throw budget_exceeded("The tables of this route would hold " + format_number(cells) +
                               " values, more than memory allows; counts this large suit the chi-square route.");
     std::vector<term_row> rows(t.groups());

@@ -39,7 +39,11 @@ struct term_row {
     std::vector<double> values;
     double operator[](std::int64_t x) const { return values[static_cast<std::size_t>(x - first)]; }
 };
-// budget_exceeded when the rows would pass 50 million values (400 MB).
+// Values the rows hold: the sum of min(n, S, F) + 1 over the groups.
+double term_values(const table& t);
+// At most this many (48 MB): part of every call's memory budget (issue 11).
+inline constexpr double max_term_values = 6e6;
+// budget_exceeded when the rows would pass max_term_values.
 std::vector<term_row> term_tables(const table& t, ordering o);
 
 // Sum of the observed terms, in group order.
