@@ -434,7 +434,21 @@ interval difference(const beta_law& x, const beta_law& y, double level) {
     return {difference_quantile(x, y, (1 - level) / 2), difference_quantile(x, y, (1 + level) / 2)};
 }
 
+namespace {
+
+// Cross-group answers cost about G integrand terms per point and cell
+// (BEST, LOSS), G^2 cells (ORDER) or G cells of G terms (TABLE): caps on
+// the groups keep every call within seconds (README, Caps).
+void check_groups(std::size_t groups, std::size_t cap, const char* what) {
+    if (groups > cap)
+        throw budget_exceeded(std::string(what) + " over " + std::to_string(groups) + " groups is beyond the cap of " +
+                              std::to_string(cap) + " groups; compare fewer groups (a range of the rows in question).");
+}
+
+}  // namespace
+
 double best(std::span<const beta_law> laws, std::size_t i, goal g) {
+    check_groups(laws.size(), max_groups_best, "The probability of being the best");
     const bool low = g == goal::low;
     const auto [lo, hi] = window(laws[i]);
     auto others = [&](double t) {
@@ -451,7 +465,10 @@ double best(std::span<const beta_law> laws, std::size_t i, goal g) {
     return std::clamp(std::exp(log_p), 0.0, 1.0);
 }
 
-double loss(std::span<const beta_law> laws, std::size_t i, goal g) {
+namespace {
+
+// E[best rate] over the laws (the highest, or the lowest for goal low).
+double expected_best(std::span<const beta_law> laws, goal g) {
     // E[max] = integral over [0, 1] of (1 - prod F_j); below every window the
     // product is 0 (integrand 1), above every window it is 1 (integrand 0).
     // For goal low, E[min] = integral of prod (1 - F_j). The integrand has
@@ -485,8 +502,34 @@ double loss(std::span<const beta_law> laws, std::size_t i, goal g) {
     if (error > 1e-10)
         throw no_convergence("The expected loss's integral did not reach its accuracy (error estimate " +
                              format_short(error) + ").");
-    const double shortfall = high ? expected_best - mean(laws[i]) : mean(laws[i]) - expected_best;
-    return std::max(0.0, shortfall);
+    return expected_best;
+}
+
+double shortfall(double best_rate, const beta_law& law, goal g) {
+    return std::max(0.0, g == goal::high ? best_rate - mean(law) : mean(law) - best_rate);
+}
+
+}  // namespace
+
+double loss(std::span<const beta_law> laws, std::size_t i, goal g) {
+    check_groups(laws.size(), max_groups_best, "The expected loss");
+    return shortfall(expected_best(laws, g), laws[i], g);
+}
+
+std::vector<std::vector<double>> order(std::span<const beta_law> laws) {
+    const bool sums = std::all_of(laws.begin(), laws.end(), [](const beta_law& l) {
+        return whole_and_small(l.a) && whole_and_small(l.b);
+    });
+    check_groups(laws.size(), sums ? max_groups_order : max_groups_order_integrals,
+                 sums ? "The table of every pair's P(ahead)"
+                      : "The table of every pair's P(ahead) with a prior that is not a whole number");
+    std::vector<std::vector<double>> out(laws.size(), std::vector<double>(laws.size(), 0.0));
+    // Each direction on its own (not 1 - the other): a small probability keeps
+    // its relative accuracy.
+    for (std::size_t r = 0; r < laws.size(); ++r)
+        for (std::size_t col = 0; col < laws.size(); ++col)
+            if (r != col) out[r][col] = ahead(laws[r], laws[col]);
+    return out;
 }
 
 double same(std::span<const group> groups, prior p, double prior_same) {
@@ -528,6 +571,10 @@ std::vector<std::vector<std::optional<double>>> curves(const counts& c, std::int
         throw invalid_input("The argument points (" + std::to_string(points) +
                             ") must be a whole number from 2 to 10001: the rates drawn from 0 to 1.");
     const auto laws = posteriors(c, p);
+    if (static_cast<double>(points) * static_cast<double>(laws.size()) > max_curve_values)
+        throw budget_exceeded("The curves of " + std::to_string(laws.size()) + " groups at " + std::to_string(points) +
+                              " points are beyond the cap of " + format_number(max_curve_values) +
+                              " values; draw fewer points or fewer groups.");
     std::vector<std::vector<std::optional<double>>> rows;
     for (std::int64_t k = 0; k < points; ++k) {
         const double x = static_cast<double>(k) / static_cast<double>(points - 1);
@@ -540,10 +587,12 @@ std::vector<std::vector<std::optional<double>>> curves(const counts& c, std::int
 
 std::vector<summary_row> summary(const counts& c, double level, goal g, prior p) {
     const auto laws = posteriors(c, p);
+    check_groups(laws.size(), max_groups_table, "The posterior table");
+    const double best_rate = expected_best(laws, g);  // one integral for every row's loss
     std::vector<summary_row> rows;
     for (std::size_t k = 0; k < laws.size(); ++k)
         rows.push_back({c.groups()[k].position, mean(laws[k]), credible(laws[k], level, kind::central),
-                        best(laws, k, g), loss(laws, k, g)});
+                        best(laws, k, g), shortfall(best_rate, laws[k], g)});
     return rows;
 }
 

@@ -194,8 +194,41 @@ interval difference_interval(const counts& c, double i, double j, const interval
     return difference_interval(a, b, each, o.how);
 }
 
+namespace {
+
+// Every pair of G groups is G (G - 1) / 2 tests: at most max_pairs of them,
+// and for the exact test at most max_exact_values hypergeometric values in
+// all (about 80 standard deviations per pair, as fisher_p stores them),
+// judged before any test runs (about 2 s at most; README, Caps).
+constexpr double max_pairs = 200000, max_exact_values = 3e8;
+
+void check_family_cost(const std::vector<group>& groups, test_method how) {
+    const double g = static_cast<double>(groups.size()), pairs = g * (g - 1) / 2;
+    if (pairs > max_pairs)
+        throw budget_exceeded("Adjusting over every pair of " + std::to_string(groups.size()) + " groups means " +
+                              format_number(pairs) + " tests, beyond the cap of " + format_number(max_pairs) +
+                              " (about 630 groups); compare fewer groups, or leave adjust empty.");
+    if (how != test_method::exact) return;
+    double values = 0;
+    for (std::size_t a = 0; a < groups.size(); ++a)
+        for (std::size_t b = a + 1; b < groups.size(); ++b) {
+            const double nd = static_cast<double>(groups[a].attempts + groups[b].attempts);
+            const double kd = static_cast<double>(groups[a].successes + groups[b].successes);
+            const double n1 = static_cast<double>(groups[a].attempts);
+            const double variance = nd > 1 ? n1 * (kd / nd) * (1 - kd / nd) * (nd - n1) / (nd - 1) : 0.0;
+            values += std::min(n1 + 1, 80 * std::sqrt(variance) + 1);
+        }
+    if (values > max_exact_values)
+        throw budget_exceeded("The exact tests of every pair would enumerate about " + format_short(values) +
+                              " tables, beyond the cap of " + format_number(max_exact_values) +
+                              "; at these counts the score test (the default) is as accurate.");
+}
+
+}  // namespace
+
 std::vector<double> all_pairs_p(const counts& c, test_method how, p_cache* cache) {
     const auto groups = c.with_attempts();
+    check_family_cost(groups, how);
     std::pair<std::vector<std::pair<std::int64_t, std::int64_t>>, test_method> key{{}, how};
     for (const auto& g : groups) key.first.emplace_back(g.successes, g.attempts);
     if (cache)

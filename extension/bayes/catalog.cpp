@@ -95,11 +95,12 @@ constexpr std::array table{
     function{"postOrder", "RATES.POST.ORDER",
              "Square array, one row and one column per filled row of the tally: the probability that the row "
              "group's rate is above the column group's. Enter as an array formula G rows by G columns for G "
-             "groups; the diagonal stays blank." WHY_502_POST,
+             "groups; the diagonal stays blank. Up to 100 groups (40 with a prior that is not a whole number); more "
+             "give Err:523." WHY_502_POST,
              order_args, true},
     function{"postBest", "RATES.POST.BEST",
              "Probability that group i has the best rate of all the groups (the highest; the lowest with goal "
-             "\"low\" for defect counts). Over all groups these add up to 1." WHY_502_POST,
+             "\"low\" for defect counts). Over all groups these add up to 1. Up to 200 groups." WHY_502_POST,
              best_args},
     function{"postLoss", "RATES.POST.LOSS",
              "Expected shortfall of choosing group i: how much rate (a fraction; format as %) you expect to give "
@@ -121,7 +122,8 @@ constexpr std::array table{
     function{"postTable", "RATES.POST.TABLE",
              "Array with a header row, then one row per group: its name or position, expected rate, credible "
              "interval low and high (central), probability of being the best, and expected loss of choosing it. "
-             "Enter as an array formula 6 columns wide and G + 1 rows high." WHY_502_POST,
+             "Enter as an array formula 6 columns wide and G + 1 rows high. Up to 30 groups; more give Err:523."
+             WHY_502_POST,
              table_args, true},
 };
 

@@ -111,17 +111,14 @@ array rates::postOrder(const caller& document, const cells& successes, const cel
                        const Any& prior_b) {
     return guarded([&] {
         const auto laws = bayes::posteriors(convert::counts_of(document, successes, attempts), prior_of(prior_a, prior_b));
-        const auto g = static_cast<sal_Int32>(laws.size());
-        array out(g);
-        for (sal_Int32 r = 0; r < g; ++r) {
-            css::uno::Sequence<Any> row(g);
-            for (sal_Int32 col = 0; col < g; ++col)
-                row.getArray()[col] = r == col ? Any(OUString())
-                                               : Any(finite(bayes::ahead(laws[static_cast<std::size_t>(r)],
-                                                                         laws[static_cast<std::size_t>(col)])));
-            out.getArray()[r] = row;
+        const auto cells = bayes::order(laws);
+        std::vector<std::vector<Any>> rows;
+        for (std::size_t r = 0; r < cells.size(); ++r) {
+            rows.emplace_back();
+            for (std::size_t col = 0; col < cells.size(); ++col)
+                rows.back().push_back(r == col ? Any(OUString()) : Any(finite(cells[r][col])));
         }
-        return out;
+        return convert::rows_to_array(rows);
     });
 }
 

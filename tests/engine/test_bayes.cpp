@@ -203,3 +203,20 @@ TEST(Compare, TableAndCurvesAreTheSingleCellAnswers) {
     EXPECT_FALSE(curve[10][2].has_value());  // Beta(14.5, 0.5) at 1: infinite
     EXPECT_THROW(bayes::curves(c, 1, p), invalid_input);
 }
+
+// Cross-group answers are bounded by the number of groups (README, Caps).
+TEST(Compare, GroupCapsAreRefusedAtOnce) {
+    const auto laws_of = [](std::size_t g) { return std::vector<bayes::beta_law>(g, bayes::beta_law{30, 10}); };
+    EXPECT_THROW(bayes::best(laws_of(bayes::max_groups_best + 1), 0, bayes::goal::high), budget_exceeded);
+    EXPECT_THROW(bayes::loss(laws_of(bayes::max_groups_best + 1), 0, bayes::goal::high), budget_exceeded);
+    EXPECT_THROW(bayes::order(laws_of(bayes::max_groups_order + 1)), budget_exceeded);
+    const auto order = bayes::order(laws_of(3));
+    EXPECT_EQ(order[0][0], 0.0);
+    EXPECT_NEAR(order[0][1], 0.5, 1e-12);  // identical laws: even odds (symmetry)
+    std::vector<std::int64_t> x(bayes::max_groups_table + 1, 30), n(bayes::max_groups_table + 1, 40);
+    const auto c = counts::from_values(x, n);
+    EXPECT_THROW(bayes::summary(c, 0.95, bayes::goal::high, {}), budget_exceeded);
+    std::vector<std::int64_t> x300(300, 30), n300(300, 40);  // 10001 points x 300 groups: 3e6 values
+    EXPECT_THROW(bayes::curves(counts::from_values(x300, n300), 10001, {}), budget_exceeded);
+    EXPECT_NO_THROW(bayes::curves(counts::from_values(x300, n300), 101, {}));
+}

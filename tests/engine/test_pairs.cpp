@@ -363,3 +363,25 @@ TEST(Pairs, TableAgreesWithTheSingleCellsToTheLastBit) {
     }
     EXPECT_THROW(pairwise::pairs_table(tally({3}, {9}), o), invalid_input);
 }
+
+// Families of every pair are bounded before any test runs (README, Caps):
+// 700 groups are 244,650 pairs, beyond the cap of 200,000; the exact tests
+// of every pair of 300 groups of 200,000 attempts at about 50 % would store
+// about 5.7e8 values (80 standard deviations of 158 for each of 44,850
+// pairs), beyond the cap of 3e8. Both refusals come at once.
+TEST(PairFamilies, CostIsCheckedBeforeAnyTestRuns) {
+    std::vector<std::int64_t> x(700), n(700, 20);
+    for (std::size_t g = 0; g < x.size(); ++g) x[g] = static_cast<std::int64_t>(g % 21);
+    const auto many = counts::from_values(x, n);
+    pairwise::test_options holm;
+    holm.adjust = adjust::p_values::holm;
+    EXPECT_THROW(pairwise::same_rate_p(many, 1, 2, holm), budget_exceeded);
+    holm.adjust = adjust::p_values::none;  // one pair alone: no family to pay for
+    EXPECT_NO_THROW(pairwise::same_rate_p(many, 1, 2, holm));
+    std::vector<std::int64_t> bx(300), bn(300, 200000);
+    for (std::size_t g = 0; g < bx.size(); ++g) bx[g] = 100000 + static_cast<std::int64_t>(g);
+    pairwise::test_options exact;
+    exact.how = pairwise::test_method::exact;
+    exact.adjust = adjust::p_values::holm;
+    EXPECT_THROW(pairwise::same_rate_p(counts::from_values(bx, bn), 1, 2, exact), budget_exceeded);
+}

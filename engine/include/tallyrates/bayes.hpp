@@ -76,10 +76,23 @@ double ahead(const beta_law& x, const beta_law& y);
 // integral of f_y(t) F_x(t + d) dt (split where t + d meets 0 or 1), found by
 // a bracketing root search (TOMS 748).
 interval difference(const beta_law& x, const beta_law& y, double level);
+// Caps on the groups of one call (budget_exceeded, Err:523, beyond them),
+// measured to keep each call within about 2 s on the 2026-12-02 machine:
+// BEST and LOSS integrate products over every group (200 groups: 0.16 and
+// 0.64 s, 0.44 and 1.6 s with Jeffreys' prior); ORDER fills G x G cells (100
+// groups 13 ms with whole priors; 40 otherwise, where each cell is an
+// integral of about 1 ms); TABLE is G rows of BEST (30 groups: about 1.7 s
+// with Jeffreys' prior); CURVE draws points x G densities.
+inline constexpr std::size_t max_groups_best = 200, max_groups_order = 100, max_groups_order_integrals = 40,
+                             max_groups_table = 30;
+inline constexpr double max_curve_values = 2e6;
+
 // P(law i has the best rate among `laws`) (the highest, or the lowest for goal low).
 double best(std::span<const beta_law> laws, std::size_t i, goal g);
 // Expected shortfall of choosing law i: E[best rate] - E[rate_i] (mirrored for goal low).
 double loss(std::span<const beta_law> laws, std::size_t i, goal g);
+// RATES.POST.ORDER: cell (r, c) holds P(rate_r > rate_c), the diagonal 0.
+std::vector<std::vector<double>> order(std::span<const beta_law> laws);
 // Posterior probability that every group shares one rate (prior probability
 // prior_same of that against all rates independent), for the groups' counts.
 double same(std::span<const group> groups, prior p, double prior_same);
