@@ -482,7 +482,9 @@ double expected_best(std::span<const beta_law> laws, goal g) {
         cuts[1] = std::max(cuts[1], hi);
         cuts.push_back(mean(law));
     }
-    const double from = cuts[0];
+    const double from = cuts[0], to = cuts[1];
+    const auto [low_mean, high_mean] = std::minmax_element(cuts.begin() + 2, cuts.end());
+    const std::vector<double> span{from, std::max(from, *low_mean), std::min(to, *high_mean), to};
     std::sort(cuts.begin(), cuts.end());
     cuts.erase(std::unique(cuts.begin(), cuts.end()), cuts.end());
     const bool high = g == goal::high;
@@ -491,13 +493,26 @@ double expected_best(std::span<const beta_law> laws, goal g) {
         for (const auto& law : laws) v += log_cdf(law, t, !high);
         return high ? -std::expm1(v) : std::exp(v);
     };
-    boost::math::quadrature::tanh_sinh<double> integrator(12);
     double expected_best = from, error = 0.0;
-    for (std::size_t k = 0; k + 1 < cuts.size(); ++k) {
-        if (cuts[k] < from || !(cuts[k + 1] > cuts[k])) continue;
-        double piece_error = 0.0;
-        expected_best += integrator.integrate(f, cuts[k], cuts[k + 1], 1e-12, &piece_error);
-        error += piece_error;
+    if (std::none_of(laws.begin(), laws.end(), singular_ends)) {
+        // A smooth integrand: adaptive Gauss-Kronrod over the whole span,
+        // split only at the lowest and highest mean, where the product turns
+        // (measured: 2 to 3 times fewer points than tanh-sinh piece by piece).
+        for (std::size_t k = 0; k + 1 < span.size(); ++k) {
+            if (!(span[k + 1] > span[k])) continue;
+            double piece_error = 0.0;
+            expected_best += boost::math::quadrature::gauss_kronrod<double, 61>::integrate(
+                f, span[k], span[k + 1], quad_depth, 1e-12, &piece_error);
+            error += piece_error;
+        }
+    } else {
+        boost::math::quadrature::tanh_sinh<double> integrator(12);
+        for (std::size_t k = 0; k + 1 < cuts.size(); ++k) {
+            if (cuts[k] < from || !(cuts[k + 1] > cuts[k])) continue;
+            double piece_error = 0.0;
+            expected_best += integrator.integrate(f, cuts[k], cuts[k + 1], 1e-12, &piece_error);
+            error += piece_error;
+        }
     }
     if (error > 1e-10)
         throw no_convergence("The expected loss's integral did not reach its accuracy (error estimate " +
