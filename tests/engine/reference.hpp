@@ -37,6 +37,14 @@ inline std::vector<std::string> csv_fields(const std::string& line) {
     return f;
 }
 
+// The parts of a quantity that carries its inputs: "post_above|1|1|0.99".
+inline std::vector<std::string> fields(const std::string& quantity) {
+    std::vector<std::string> out;
+    std::stringstream in(quantity);
+    for (std::string s; std::getline(in, s, '|');) out.push_back(s);
+    return out;
+}
+
 inline std::vector<reference_row> reference_rows(const std::string& quantity_prefix) {
     std::ifstream in(TALLYRATES_REFERENCE_DIR "/omnibus.csv");
     if (!in) throw std::runtime_error("cannot open omnibus.csv");

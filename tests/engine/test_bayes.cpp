@@ -14,16 +14,10 @@
 #include "tallyrates/errors.hpp"
 
 using namespace tallyrates;
+using tallyrates::testing::fields;
 using tallyrates::testing::reference_rows;
 
 namespace {
-
-std::vector<std::string> fields(const std::string& quantity) {
-    std::vector<std::string> out;
-    std::stringstream in(quantity);
-    for (std::string s; std::getline(in, s, '|');) out.push_back(s);
-    return out;
-}
 
 void expect_close(double got, double want, const tallyrates::testing::reference_row& r) {
     const double tol = std::fabs(want) < 1e-3 ? std::max(1e-8 * std::fabs(want), 1e-300) : 1e-10;

@@ -17,16 +17,10 @@
 #include "tallyrates/planning.hpp"
 
 using namespace tallyrates;
+using tallyrates::testing::fields;
 using tallyrates::testing::reference_rows;
 
 namespace {
-
-std::vector<std::string> fields(const std::string& quantity) {
-    std::vector<std::string> out;
-    std::stringstream in(quantity);
-    for (std::string s; std::getline(in, s, '|');) out.push_back(s);
-    return out;
-}
 
 one_rate::method method_of(const std::string& name) {
     if (name == "wilson") return one_rate::method::wilson;
