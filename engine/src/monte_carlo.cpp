@@ -49,7 +49,7 @@ namespace tallyrates::omnibus {
 namespace {
 
 constexpr std::int64_t block_size = 65536;
-constexpr double trim = 1e-20;
+constexpr double trim = detail::sampler_trim;
 constexpr std::size_t table_memory_cap = 2'000'000;  // doubles cached per thread (16 MB)
 // Measured costs (README benchmarks): about 66 ns per variate drawn from a
 // cached table, 33 ns per table entry built; one unit is about 8 ns.

@@ -33,6 +33,11 @@ inline hypergeometric_support feasible_successes(std::int64_t population, std::i
 // Fills `pmf` with P(first), ..., P(last) normalised to sum 1. With trim > 0,
 // values below trim * P(mode) are left out at both ends (their total is below
 // trim * (n + 1) relative to the mode). Returns the range actually stored.
+// The Monte Carlo sampler's cumulative tables leave out values below this
+// share of the mode: the mass left out stays below the 2^-53 resolution of
+// its uniforms (tested), so no draw that matters changes.
+inline constexpr double sampler_trim = 1e-20;
+
 hypergeometric_support hypergeometric_pmf(std::int64_t population, std::int64_t marked, std::int64_t draws,
                                           std::vector<double>& pmf, double trim = 0.0);
 
