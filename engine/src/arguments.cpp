@@ -41,6 +41,15 @@ double level(double value, const char* name) {
     return value;
 }
 
+double rate(double value, const char* name) {
+    if (!(value >= 0 && value <= 1)) out_of_range(name, value, "lie between 0 and 1, a fraction such as 0.99 for 99 %");
+    return value;
+}
+
+void out_of_range(const char* name, double value, const std::string& rule) {
+    throw invalid_input(the(name) + " (" + format_number(value) + ") must " + rule + ".");
+}
+
 void not_a_number(const char* name) { throw invalid_input(the(name) + " must be a single number."); }
 void not_a_word(const char* name) { throw invalid_input(the(name) + " must be a word in quotes."); }
 void not_a_range(const char* name) { throw invalid_input(the(name) + " must be a range of cells."); }

@@ -96,9 +96,7 @@ interval credible(const beta_law& law, double level, kind how) {
 }
 
 double above(const beta_law& law, double rate, goal g) {
-    if (!(rate >= 0 && rate <= 1))
-        throw invalid_input("The argument rate (" + format_number(rate) +
-                            ") must lie between 0 and 1, a fraction such as 0.99 for 99 %.");
+    arguments::rate(rate, "rate");
     return g == goal::high ? boost::math::ibetac(law.a, law.b, rate) : boost::math::ibeta(law.a, law.b, rate);
 }
 

@@ -15,17 +15,6 @@ namespace tallyrates::planning {
 
 namespace {
 
-std::string the(const char* name, double value) {
-    return std::string("The argument ") + name + " (" + format_number(value) + ")";
-}
-
-// A rate typed by the user: a fraction from 0 to 1.
-double fraction(double value, const char* name) {
-    if (!(value >= 0 && value <= 1))
-        throw invalid_input(the(name, value) + " must be a rate from 0 to 1, for example 0.99 for 99 %.");
-    return value;
-}
-
 [[noreturn]] void beyond_cap(const char* what) {
     throw unreachable_target(std::string("This needs more than ") + format_number(max_attempts) + " " + what +
                              ", the planning cap: relax the target.");
@@ -60,7 +49,7 @@ std::int64_t first_meeting(std::int64_t low, std::int64_t high, F meets) {
 
 std::int64_t demonstration(double rate, double confidence, std::int64_t failures) {
     if (!(rate > 0 && rate <= 1))
-        throw invalid_input(the("rate", rate) + " must lie above 0 and at most 1, for example 0.99 for 99 %.");
+        arguments::out_of_range("rate", rate, "lie above 0 and at most 1, for example 0.99 for 99 %");
     arguments::level(confidence, "confidence");
     if (rate == 1)
         throw unreachable_target(
@@ -95,13 +84,13 @@ double half_width(double rate, std::int64_t n, double level, one_rate::method ho
 }
 
 std::int64_t width(double rate, double half, double level, one_rate::method how) {
-    fraction(rate, "rate");
+    arguments::rate(rate, "rate");
     arguments::level(level, "level");
     if (half == 0)
         throw unreachable_target("No number of attempts gives an interval of width 0: choose a half-width above 0.");
     if (!(half > 0 && half < 1))
-        throw invalid_input(the("half_width", half) +
-                            " must lie above 0 and below 1: 0.02 asks for plus or minus 2 percentage points.");
+        arguments::out_of_range("half_width", half,
+                                "lie above 0 and below 1: 0.02 asks for plus or minus 2 percentage points");
     // The lower envelope, smooth in n (real n is fine for every method): the
     // narrower interval at the real counts rate n -+ 1/2.
     const auto envelope = [&](double n) {
@@ -164,8 +153,7 @@ std::int64_t width(double rate, double half, double level, one_rate::method how)
 correction correction_from_number(double value) {
     if (value == 1) return correction::continuity;
     if (value == 0) return correction::none;
-    throw invalid_input(the("correction", value) +
-                        " must be TRUE or FALSE (1 or 0), or the word \"none\" or \"continuity\".");
+    arguments::out_of_range("correction", value, "be TRUE or FALSE (1 or 0), or the word \"none\" or \"continuity\"");
 }
 
 namespace {
@@ -178,8 +166,8 @@ struct power_terms {
 };
 
 power_terms terms_of(double p1, double p2, double alpha) {
-    fraction(p1, "rate_1");
-    fraction(p2, "rate_2");
+    arguments::rate(p1, "rate_1");
+    arguments::rate(p2, "rate_2");
     arguments::level(alpha, "alpha");
     if (p1 == p2)
         throw unreachable_target("The two rates are equal: there is no difference to detect. Enter the rate you "

@@ -27,6 +27,12 @@ std::size_t position(double value, std::size_t size, const char* name);
 // A confidence or credible level strictly between 0 and 1.
 double level(double value, const char* name);
 
+// A rate: a fraction from 0 to 1 inclusive.
+double rate(double value, const char* name);
+
+// Any other range rule: "The argument NAME (VALUE) must RULE."
+[[noreturn]] void out_of_range(const char* name, double value, const std::string& rule);
+
 // What a cell held when a number, a word or a range was wanted.
 [[noreturn]] void not_a_number(const char* name);
 [[noreturn]] void not_a_word(const char* name);
