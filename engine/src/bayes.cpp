@@ -11,6 +11,7 @@
 #include <boost/math/tools/minima.hpp>
 #include <boost/math/tools/roots.hpp>
 #include <cmath>
+#include <complex>
 #include <limits>
 
 #include "tallyrates/arguments.hpp"
@@ -404,7 +405,64 @@ double difference_cdf(const beta_law& x, const beta_law& y, double d) {
     return std::clamp(total, 0.0, 1.0);
 }
 
+// P(X - Y <= d) and, scaled by `scale`, its density, in one adaptive
+// Gauss-Kronrod pass over Y's window with a complex integrand (real part
+// f_Y(t) F_X(t + d), imaginary part f_Y(t) f_X(t + d) scale). For laws
+// without an infinite end; `w` is Y's window.
+std::pair<double, double> difference_cdf_density(const beta_law& x, const beta_law& y, double d,
+                                                 std::pair<double, double> w, double scale) {
+    auto f = [&](double t) {
+        const double s = t + d;
+        if (s <= 0) return std::complex<double>(0.0, 0.0);
+        const double fy = std::exp(log_density(y, t));
+        if (s >= 1) return std::complex<double>(fy, 0.0);
+        return std::complex<double>(fy * boost::math::ibeta(x.a, x.b, s),
+                                    fy * boost::math::ibeta_derivative(x.a, x.b, s) * scale);
+    };
+    std::vector<double> cuts{w.first, w.second, mean(y)};
+    for (double c : {-d, 1 - d})
+        if (c > w.first && c < w.second) cuts.push_back(c);
+    std::sort(cuts.begin(), cuts.end());
+    std::complex<double> total = 0.0;
+    double error = 0.0;
+    for (std::size_t k = 0; k + 1 < cuts.size(); ++k) {
+        if (!(cuts[k + 1] > cuts[k])) continue;
+        double piece_error = 0.0;
+        total += boost::math::quadrature::gauss_kronrod<double, 61>::integrate(f, cuts[k], cuts[k + 1], quad_depth,
+                                                                              cdf_tolerance, &piece_error);
+        error += piece_error;
+    }
+    if (error > 1e-11)
+        throw no_convergence("A credible bound's integral did not reach its accuracy (error estimate " +
+                             format_short(error) + ").");
+    return {std::clamp(total.real(), 0.0, 1.0), total.imag() / scale};
+}
+
+// The quantile by Newton's method from the normal approximation, each step
+// one pass giving the CDF and the density together; a step that would leave
+// the bracket known so far is replaced by bisection. Two or three passes
+// where the bracketing search took seven to eleven integrals (measured).
+double difference_quantile_newton(const beta_law& x, const beta_law& y, double q) {
+    const double spread = std::hypot(sd(x), sd(y));
+    const auto w = window(y);
+    double lo = -1.0, hi = 1.0;
+    double d = std::clamp(mean(x) - mean(y) + spread * boost::math::quantile(boost::math::normal(), q), -1.0, 1.0);
+    for (int step = 0; step < 60; ++step) {
+        const auto [cdf, density] = difference_cdf_density(x, y, d, w, spread);
+        const double g = cdf - q;
+        (g < 0 ? lo : hi) = d;
+        double next = d - g / density;
+        if (!(density > 0) || !(next > lo && next < hi)) next = (lo + hi) / 2;
+        // Converged: what remains after a Newton step of size e is about
+        // e^2 f''/(2 f'), below 1e-11 for e < 3e-7 at these spreads.
+        if (std::fabs(next - d) < 3e-7 * std::min(1.0, spread / 0.01) || hi - lo < 1e-12) return next;
+        d = next;
+    }
+    throw no_convergence("A credible bound's root search did not converge.");
+}
+
 double difference_quantile(const beta_law& x, const beta_law& y, double q) {
+    if (!singular_ends(x) && !singular_ends(y)) return difference_quantile_newton(x, y, q);
     auto f = [&](double d) { return d <= -1 ? -q : d >= 1 ? 1 - q : difference_cdf(x, y, d) - q; };
     // Start at the normal approximation's quantile and step away from it,
     // doubling the step, until the root is bracketed: two or three integrals
