@@ -76,7 +76,7 @@ BENCHMARK(BM_next_1000)->Unit(benchmark::kMicrosecond);
 // Side by side (issue 8): our P(best) for six groups against the common Monte
 // Carlo estimate, 100,000 draws per group, written here only for the
 // comparison (std::gamma_distribution: a Beta draw is G_a / (G_a + G_b)).
-// Both report their error against 30-digit mpmath: tests/reference/omnibus.csv,
+// Both report their error against 50-digit mpmath: tests/reference/omnibus.csv,
 // row c_six, post_best|1|1|4 = 0.7574822118838822.
 const std::vector<bayes::beta_law> six{{10, 12}, {13, 9}, {8, 14}, {16, 6}, {12, 10}, {11, 11}};
 constexpr double six_best_4 = 0.7574822118838822;

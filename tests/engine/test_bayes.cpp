@@ -1,5 +1,5 @@
 // Tests of the Bayesian answers about one group (bayes.hpp) against
-// 30-digit mpmath rows of tests/reference/omnibus.csv (generate.py: the
+// 50-digit mpmath rows of tests/reference/omnibus.csv (generate.py: the
 // incomplete beta function by its continued fraction, bisection and findroot,
 // the beta-binomial sum; NEXT rows also agree with scipy stats.betabinom).
 // Accuracy asked by issue 8: absolute 1e-10, relative 1e-8 below 1e-3.
@@ -115,7 +115,7 @@ TEST(Posterior, NextStaysExactWhenThePredictiveLawIsUShaped) {
 
 TEST(Compare, ReferenceRows) {
     // post_ahead|a|b|i|j, post_best|a|b|i, post_loss|a|b|i, post_same|a|b|prior_same:
-    // 30-digit mpmath (Cook 2005's finite sum, quadrature with the incomplete
+    // 50-digit mpmath (Cook 2005's finite sum, quadrature with the incomplete
     // beta by continued fraction, marginal likelihoods by loggamma).
     std::map<std::string, int> checked;
     for (const auto& r : reference_rows("post_")) {

@@ -1,7 +1,7 @@
 #!/usr/bin/python3
 """The Bayesian family inside a real LibreOffice with the installed .oxt.
 
-Values are compared with the 30-digit mpmath rows of
+Values are compared with the 50-digit mpmath rows of
 tests/reference/omnibus.csv (generate.py); each comparison names its source.
 """
 import harness
@@ -71,7 +71,7 @@ class Posterior(SheetCase):
         self.assertEqual(cell("D1").getString(), "")  # the diagonal
         self.assertEqual(cell("E1").getValue(), self.value_of("I1"))
         self.assertEqual(cell("F4").getValue(), self.value_of("I2"))
-        # c_ovens, post_ahead 1 over 2: Cook (2005)'s sum in 30-digit mpmath (omnibus.csv).
+        # c_ovens, post_ahead 1 over 2: Cook (2005)'s sum in 50-digit mpmath (omnibus.csv).
         self.assertAlmostEqual(cell("E1").getValue(), 0.8376146424373224, delta=1e-10)
         self.assertAlmostEqual(cell("E1").getValue() + cell("D2").getValue(), 1.0, delta=1e-12)
 
@@ -96,7 +96,7 @@ class Posterior(SheetCase):
         self.doc.calculateAll()
         self.assertEqual(cell("O1").getString(), "position 1")
         self.assertAlmostEqual(cell("N11").getValue(), 0.9, places=15)
-        # Beta(287, 15) density at 0.9 (30-digit mpmath would agree; here the
+        # Beta(287, 15) density at 0.9 (50-digit mpmath would agree; here the
         # definition through scipy-free arithmetic: lgamma).
         import math
         want = math.exp(286 * math.log(0.9) + 14 * math.log(0.1) - (math.lgamma(287) + math.lgamma(15) - math.lgamma(302)))

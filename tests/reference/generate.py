@@ -37,7 +37,7 @@ Sources:
       bonferroni, sidak): adjusted p-values over the family (statsmodels).
   Table(shift_zeros=False).standardized_resids: adjusted standardized
       residuals of the successes (statsmodels).
-  Bayesian rows (post_*), 30-digit mpmath: the posterior mean as a ratio,
+  Bayesian rows (post_*), 50-digit mpmath: the posterior mean as a ratio,
       central bounds and P(rate > r) from the incomplete beta function's
       continued fraction (DLMF 8.17.22, modified Lentz) and bisection, highest-density bounds by findroot on the equal-density
       condition, and the beta-binomial predictive tail as an exact sum; each
@@ -45,7 +45,9 @@ Sources:
       prior and the other inputs ride in the quantity: name|a|b|... .
 """
 import csv
+import io
 import itertools
+import multiprocessing
 import math
 import sys
 from fractions import Fraction
@@ -513,8 +515,8 @@ def mp_next(a, b, m, k):
 
 
 def posterior_rows(w):
-    mpmath.mp.dps = 30
-    source = "mpmath " + mpmath.__version__ + " (30 digits; this file)"
+    mpmath.mp.dps = 50
+    source = "mpmath " + mpmath.__version__ + " (50 digits; this file)"
     for name, x, n, pa, pb in POST_CASES:
         a, b = mpmath.mpf(pa) + x, mpmath.mpf(pb) + n - x
         tag = "|%s|%s" % (fmt(pa), fmt(pb))
@@ -561,7 +563,7 @@ COMPARE_CASES = [
 def mp_ahead_sum(a1, b1, a2, b2):
     """P(X > Y), X ~ Beta(a1, b1), Y ~ Beta(a2, b2), a1 a whole number: the
     finite sum of Cook (2005, "Exact calculation of beta inequalities", UT MD
-    Anderson Cancer Center technical report), in 30-digit mpmath."""
+    Anderson Cancer Center technical report), in mpmath at the working precision."""
     lb = lambda a, b: mpmath.log(mpmath.beta(a, b))
     return mpmath.fsum(mpmath.exp(lb(a2 + i, b1 + b2) - lb(1 + i, b1) - lb(a2, b2)) / (b1 + i)
                        for i in range(int(a1)))
@@ -637,10 +639,13 @@ def mp_difference_quantile(x, y, q):
     return mpmath.findroot(lambda d: cdf(d) - q, (a, b), solver="anderson", tol=1e-28, maxsteps=60, verify=False)
 
 
-def comparison_rows(w):
-    mpmath.mp.dps = 30
-    source = "mpmath " + mpmath.__version__ + " (30 digits; this file)"
+def comparison_rows(w, large=False):
+    """The cases of up to 6 groups, or (large) those of 12 and 20."""
+    mpmath.mp.dps = 50
+    source = "mpmath " + mpmath.__version__ + " (50 digits; this file)"
     for name, x, n in COMPARE_CASES:
+        if (len(x) >= 12) != large:
+            continue
         laws = [(mpmath.mpf(1) + xi, mpmath.mpf(1) + ni - xi) for xi, ni in zip(x, n)]
         (a1, b1), (a2, b2) = laws[0], laws[1]
         if name == "c_million":
@@ -663,22 +668,19 @@ def comparison_rows(w):
             row(w, name, x, n, "post_ahead|0.5|0.5|1|2", float(pj),
                 source + ": quad of f_1 F_2, incomplete beta by continued fraction")
         if len(laws) > 2 or name == "c_mid":
-            chosen, group_source = range(len(laws)), source
+            chosen = range(len(laws))
             if len(laws) >= 12:
-                # Two groups only, at 20 digits (still ten beyond the 1e-10
-                # checked): each integral multiplies 11 or 19 CDFs and takes
-                # seconds in mpmath.
+                # Two groups only: each integral multiplies 11 or 19 CDFs and
+                # takes seconds in mpmath.
                 chosen = [0, max(range(len(laws)), key=lambda k: x[k] / n[k])]
-                mpmath.mp.dps = 20
-                group_source = source.replace("30 digits", "20 digits")
             for i in chosen:
                 row(w, name, x, n, "post_best|1|1|%d" % (i + 1), float(mp_best(laws, i)),
-                    group_source + ": quad of f_i prod F_j")
+                    source + ": quad of f_i prod F_j")
             e_max = mp_expected_max(laws)
             for i in chosen:
                 a, b = laws[i]
                 row(w, name, x, n, "post_loss|1|1|%d" % (i + 1), float(e_max - a / (a + b)),
-                    group_source + ": quad of 1 - prod F_j")
+                    source + ": quad of 1 - prod F_j")
         if name == "c_ovens":
             # Jeffreys' prior with a fifth oven not yet run: its posterior is the
             # U-shaped prior itself, infinite at 0 and 1.
@@ -690,7 +692,6 @@ def comparison_rows(w):
                     source + ": quad of f_i prod F_j")
                 row(w, "c_new_oven", jx, jn, "post_loss|0.5|0.5|%d" % (i + 1),
                     float(e_max - jl[i][0] / (jl[i][0] + jl[i][1])), source + ": quad of 1 - prod F_j")
-        mpmath.mp.dps = 30
         for prior_same in ("0.5", "0.9"):
             row(w, name, x, n, "post_same|1|1|" + prior_same, float(mp_same(x, n, 1, 1, mpmath.mpf(prior_same))),
                 source + ": marginal likelihoods by loggamma")
@@ -823,23 +824,30 @@ def ahead_plan_rows(w):
         row(w, "plan_ahead", [s1, s2], [n1, n2], "plan_ahead|%d|%d|%s" % (prior, prior, c), m, source)
 
 
+SECTIONS = ["chi_rows", "exact_rows", "trend_rows", "one_rate_rows", "pair_rows", "family_rows", "twenty_rows",
+            "residual_rows", "posterior_rows", "comparison_rows", "comparison_rows_large", "demo_rows", "width_rows",
+            "power_rows", "ahead_plan_rows"]
+
+
+def comparison_rows_large(w):
+    comparison_rows(w, large=True)
+
+
+def section_text(name):
+    """One section's rows as text. Every section that uses mpmath sets its
+    own precision, so the sections can run in any order, in parallel."""
+    buf = io.StringIO()
+    globals()[name](csv.writer(buf, lineterminator="\n"))
+    return buf.getvalue()
+
+
 def main():
-    w = csv.writer(sys.stdout, lineterminator="\n")
-    w.writerow(["case", "successes", "attempts", "quantity", "value", "source"])
-    chi_rows(w)
-    exact_rows(w)
-    trend_rows(w)
-    one_rate_rows(w)
-    pair_rows(w)
-    family_rows(w)
-    twenty_rows(w)
-    residual_rows(w)
-    posterior_rows(w)
-    comparison_rows(w)
-    demo_rows(w)
-    width_rows(w)
-    power_rows(w)
-    ahead_plan_rows(w)
+    sys.stdout.write("case,successes,attempts,quantity,value,source\n")
+    # Two processes (the machine's two cores): the file is the same as in
+    # one, the sections joined in their fixed order.
+    with multiprocessing.get_context("fork").Pool(2) as pool:
+        for text in pool.map(section_text, SECTIONS, chunksize=1):
+            sys.stdout.write(text)
 
 
 if __name__ == "__main__":
