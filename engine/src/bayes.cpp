@@ -189,7 +189,7 @@ double log_cdf(const beta_law& law, double x, bool upper) {
 // log of the integral of exp(g(x)) over [lo, hi], g finite somewhere inside:
 // split at the maximum of g, each side by adaptive Gauss-Kronrod on exp(g - max).
 template <class G>
-double log_integral(G g, double lo, double hi) {
+double log_integral(G g, double lo, double hi, double tolerance = quad_tolerance) {
     if (!(hi > lo)) return -HUGE_VAL;
     auto minus_g = [&](double x) {
         const double v = g(x);
@@ -208,7 +208,7 @@ double log_integral(G g, double lo, double hi) {
     for (const auto& [a, b] : {std::pair{lo, x_star}, std::pair{x_star, hi}}) {
         if (!(b > a)) continue;
         double part_error = 0.0;
-        total += boost::math::quadrature::gauss_kronrod<double, 61>::integrate(f, a, b, quad_depth, quad_tolerance,
+        total += boost::math::quadrature::gauss_kronrod<double, 61>::integrate(f, a, b, quad_depth, tolerance,
                                                                                &part_error);
         error += part_error;
     }
@@ -252,7 +252,7 @@ double tail_point(const beta_law& law, double tail, bool upper) {
 // tanh-sinh hands over exactly near an end at 1 (where 1 - t itself would
 // have lost its digits).
 template <class G>
-double log_integral_singular(G g, double lo, double hi) {
+double log_integral_singular(G g, double lo, double hi, double tolerance = 1e-12) {
     double g_ref = -HUGE_VAL;
     for (int k = 1; k < 64; ++k) {
         const double t = lo + (hi - lo) * k / 64.0;
@@ -267,7 +267,7 @@ double log_integral_singular(G g, double lo, double hi) {
     };
     boost::math::quadrature::tanh_sinh<double> integrator(15);
     double error = 0.0;
-    const double total = integrator.integrate(f, lo, hi, 1e-12, &error);
+    const double total = integrator.integrate(f, lo, hi, tolerance, &error);
     if (error > 1e-8 * total && error * std::exp(g_ref) > 1e-11)
         throw no_convergence("A posterior probability's integral did not reach its accuracy (relative error "
                              "estimate " + format_short(error / total) + ").");
@@ -289,18 +289,34 @@ double sd(const beta_law& law) {
 }
 
 // The window where law's mass lies.
-std::pair<double, double> window(const beta_law& law) {
-    return {tail_point(law, window_tail, false), tail_point(law, window_tail, true)};
+std::pair<double, double> window(const beta_law& law, double tail = window_tail) {
+    // Next to an end where the density is infinite (a or b below 1) the tail
+    // holds about d^a (or d^b) within d of it: the quantile is that end in
+    // double precision, and Boost's inverse gives up there (tail_point's
+    // bisection fallback took about 1 ms; measured).
+    return {law.a < 1 ? 0.0 : tail_point(law, tail, false), law.b < 1 ? 1.0 : tail_point(law, tail, true)};
 }
 
 // The integral of f_law(t) T(t) over law's window, T given in logs.
+// How far an integral goes: the window's tail quantile and the relative
+// tolerance. Probabilities that may be tiny need the deep window and 1e-10;
+// one compared with a confidence needs neither (1e-16 cuts less than 2e-16,
+// and 1e-9 stays clear of the densities' rounding noise near 1e-11, which a
+// tighter tolerance chases to the deepest bisection: measured).
+struct reach_of_integral {
+    double tail, tolerance, singular_tolerance;  // the last for tanh-sinh, at an infinite end
+};
+constexpr reach_of_integral for_probability{window_tail, quad_tolerance, 1e-12}, for_comparison{1e-16, 1e-9, 1e-10};
+
 template <class T>
-double integral_over(const beta_law& law, std::pair<double, double> w, T log_tail) {
-    const auto [lo, hi] = w;
+double integral_over(const beta_law& law, reach_of_integral how, T log_tail) {
+    const auto [lo, hi] = window(law, how.tail);
     if (singular_ends(law))
         return std::exp(log_integral_singular(
-            [&](double t, double u) { return log_density_ends(law, t, u) + log_tail(t); }, lo, hi));
-    return std::exp(log_integral([&](double t) { return log_density(law, t) + log_tail(t); }, lo, hi));
+            [&](double t, double u) { return log_density_ends(law, t, u) + log_tail(t); }, lo, hi,
+            how.singular_tolerance));
+    return std::exp(
+        log_integral([&](double t) { return log_density(law, t) + log_tail(t); }, lo, hi, how.tolerance));
 }
 
 // P(X > Y) directly: the integral of f_X(t) F_Y(t) over X's window, or of
@@ -308,11 +324,11 @@ double integral_over(const beta_law& law, std::pair<double, double> w, T log_tai
 // narrower law the other's tail is smooth, so the quadrature needs few
 // points: a pilot of 15 against a line of 10^6 (prior 0.5) takes about 50
 // times fewer than the other way round. No subtraction either way.
-double ahead_direct(const beta_law& x, const beta_law& y) {
+double ahead_direct(const beta_law& x, const beta_law& y, reach_of_integral how) {
     // Narrower by standard deviation: a window itself can cost hundreds of
     // incomplete beta calls (tail_point's fallback), so only one is found.
-    if (sd(y) < sd(x)) return integral_over(y, window(y), [&](double t) { return log_cdf(x, t, true); });
-    return integral_over(x, window(x), [&](double t) { return log_cdf(y, t, false); });
+    if (sd(y) < sd(x)) return integral_over(y, how, [&](double t) { return log_cdf(x, t, true); });
+    return integral_over(x, how, [&](double t) { return log_cdf(y, t, false); });
 }
 
 // Largest number of terms the finite sum may take (about 2 ms; 10^6 terms
@@ -355,18 +371,22 @@ double ahead_sum(const beta_law& x, const beta_law& y) {
 // mirrored (X > Y exactly when 1 - Y > 1 - X, and 1 - Y ~ Beta(b2, a2)), over
 // Y's second one: the fewer terms wins, so a line with 10^6 attempts and few
 // failures costs as many terms as it has failures.
-double ahead_small_side(const beta_law& x, const beta_law& y) {
+double ahead_small_side(const beta_law& x, const beta_law& y, reach_of_integral how) {
     const bool direct = whole_and_small(x.a), mirrored = whole_and_small(y.b);
     if (mirrored && (!direct || y.b < x.a)) return ahead_sum({y.b, y.a}, {x.b, x.a});
-    return direct ? ahead_sum(x, y) : ahead_direct(x, y);
+    return direct ? ahead_sum(x, y) : ahead_direct(x, y, how);
+}
+
+double ahead_to(const beta_law& x, const beta_law& y, reach_of_integral how) {
+    const double p = mean(x) <= mean(y) ? ahead_small_side(x, y, how) : 1.0 - ahead_small_side(y, x, how);
+    return std::clamp(p, 0.0, 1.0);
 }
 
 }  // namespace
 
-double ahead(const beta_law& x, const beta_law& y) {
-    const double p = mean(x) <= mean(y) ? ahead_small_side(x, y) : 1.0 - ahead_small_side(y, x);
-    return std::clamp(p, 0.0, 1.0);
-}
+double ahead(const beta_law& x, const beta_law& y) { return ahead_to(x, y, for_probability); }
+
+double ahead_absolute(const beta_law& x, const beta_law& y) { return ahead_to(x, y, for_comparison); }
 
 
 namespace {

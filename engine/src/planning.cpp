@@ -209,7 +209,7 @@ std::int64_t ahead(const bayes::beta_law& pilot, const bayes::beta_law& other, d
                                  "below 1, such as 0.95.");
     arguments::level(confidence, "confidence");
     const auto meets = [&](std::int64_t m) {
-        return bayes::ahead({pilot.a + static_cast<double>(m), pilot.b}, other) >= confidence;
+        return bayes::ahead_absolute({pilot.a + static_cast<double>(m), pilot.b}, other) >= confidence;
     };
     if (meets(0)) return 0;
     const auto cap = static_cast<std::int64_t>(max_attempts);
