@@ -303,16 +303,18 @@ monte_carlo_outcome monte_carlo_p(const table& t, ordering o, std::int64_t draws
     monte_carlo_outcome out;
     out.draws = draws;
     const double cap = static_cast<double>(work_cap);
-    if (detail::term_values(t) > detail::max_term_values)
-        throw budget_exceeded("Monte Carlo would need tables of " + format_number(detail::term_values(t)) +
+    if (const double values = detail::term_values(t); values > detail::max_term_values)
+        throw budget_exceeded("Monte Carlo would need tables of " + format_number(values) +
                               " values for counts this large, more than memory allows; counts this large suit "
                               "the chi-square route.");
     // Refusals foreseen from the plan, before anything is built: the
     // automatic route needs at least 1,000 draws within its cap.
-    const plan p = plan_of(t, o, static_cast<double>(draws));
-    if (fit_to_work && plan_of(t, o, 1000).total(1000) > cap)
+    // (Fitted to the work, the plan is made for the 1,000 draws it must reach.)
+    const double planned = fit_to_work ? 1000.0 : static_cast<double>(draws);
+    const plan p = plan_of(t, o, planned);
+    if (fit_to_work && p.total(planned) > cap)
         throw budget_exceeded("Monte Carlo cannot make 1,000 draws within the time budget for counts this large.");
-    if (!fit_to_work && p.total(static_cast<double>(draws)) > cap) {
+    if (!fit_to_work && p.total(planned) > cap) {
         const double fit = std::floor(p.draws_within(cap));
         throw budget_exceeded("Monte Carlo with " + format_number(static_cast<double>(draws)) + " draws over " +
                               std::to_string(t.groups()) + " groups needs about " +

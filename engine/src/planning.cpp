@@ -43,6 +43,20 @@ std::int64_t first_meeting(std::int64_t low, std::int64_t high, F meets) {
     return low;
 }
 
+// The smallest n >= low with meets(n), for a test that holds from some n on:
+// doubling until it holds (past the cap: unreachable_target), then bisection.
+template <class F>
+std::int64_t first_meeting_from(std::int64_t low, F meets, const char* what) {
+    const auto cap = static_cast<std::int64_t>(max_attempts);
+    std::int64_t high = low;
+    while (!meets(high)) {
+        if (high >= cap) beyond_cap(what);
+        low = high + 1;
+        high = std::min(cap, 2 * high);
+    }
+    return first_meeting(low, high, meets);
+}
+
 }  // namespace
 
 // ---- demonstration ----
@@ -65,14 +79,7 @@ std::int64_t demonstration(double rate, double confidence, std::int64_t failures
         return boost::math::cdf(boost::math::binomial_distribution<double>(static_cast<double>(n), defect),
                                 static_cast<double>(failures)) <= tail;
     };
-    const std::int64_t cap = static_cast<std::int64_t>(max_attempts);
-    std::int64_t low = std::max<std::int64_t>(zero_failures, failures + 1), high = low;
-    while (!meets(high)) {
-        if (high >= cap) beyond_cap("attempts");
-        low = high + 1;
-        high = std::min(cap, 2 * high);
-    }
-    return first_meeting(low, high, meets);
+    return first_meeting_from(std::max<std::int64_t>(zero_failures, failures + 1), meets, "attempts");
 }
 
 // ---- interval width ----
@@ -83,6 +90,42 @@ double half_width(double rate, std::int64_t n, double level, one_rate::method ho
     return (b.high - b.low) / 2;
 }
 
+namespace {
+
+// The first n at which an interval at a real count within 1/2 of rate n
+// can be as narrow as `half`: TOMS 748 on the lower envelope, smooth in n
+// (real n is fine for every method), the narrower interval at the real
+// counts rate n -+ 1/2.
+std::int64_t first_possible(double rate, double half, double level, one_rate::method how) {
+    const auto envelope = [&](double n) {
+        const auto at = [&](double x) {
+            const interval b = one_rate::bounds_at(std::clamp(x, 0.0, n), n, level, how);
+            return (b.high - b.low) / 2;
+        };
+        return std::min(at(rate * n - 0.5), at(rate * n + 0.5));
+    };
+    const auto meets = [&](double n) { return envelope(n) <= half; };
+    // A bracket around the normal-approximation size z^2 p (1 - p) / E^2,
+    // widened by factors of 4, then the root down to a bracket narrower than
+    // one attempt: about 10 evaluations where a bisection over [1, 10^9] took 30.
+    const double z = one_rate::two_sided_z(level);
+    double lo = std::max(1.0, std::floor(z * z * rate * (1 - rate) / (half * half))), hi = lo;
+    while (lo > 1 && meets(lo)) lo = std::max(1.0, std::floor(lo / 4));
+    while (!meets(hi)) {
+        if (hi >= max_attempts) beyond_cap("attempts");
+        hi = std::min(max_attempts, 4 * hi);
+    }
+    if (meets(lo)) return static_cast<std::int64_t>(lo);
+    std::uintmax_t iterations = 100;
+    const auto root = boost::math::tools::toms748_solve([&](double n) { return envelope(n) - half; }, lo, hi,
+                                                        [](double a, double b) { return b - a < 0.5; }, iterations);
+    lo = std::ceil(root.first);
+    while (!meets(lo)) ++lo;  // at most a step or two: the bracket is narrower than one attempt
+    return static_cast<std::int64_t>(lo);
+}
+
+}  // namespace
+
 std::int64_t width(double rate, double half, double level, one_rate::method how) {
     arguments::rate(rate, "rate");
     arguments::level(level, "level");
@@ -91,36 +134,7 @@ std::int64_t width(double rate, double half, double level, one_rate::method how)
     if (!(half > 0 && half < 1))
         arguments::out_of_range("half_width", half,
                                 "lie above 0 and below 1: 0.02 asks for plus or minus 2 percentage points");
-    // The lower envelope, smooth in n (real n is fine for every method): the
-    // narrower interval at the real counts rate n -+ 1/2.
-    const auto envelope = [&](double n) {
-        const double centre = rate * n;
-        const auto at = [&](double x) {
-            const interval b = one_rate::bounds_at(std::clamp(x, 0.0, n), n, level, how);
-            return (b.high - b.low) / 2;
-        };
-        return std::min(at(centre - 0.5), at(centre + 0.5));
-    };
-    const auto meets = [&](double n) { return envelope(n) <= half; };
-    // A bracket around the normal-approximation size z^2 p (1 - p) / E^2,
-    // widened by factors of 4, then TOMS 748 (Boost.Math) on the envelope
-    // down to a bracket narrower than one attempt: about 10 evaluations
-    // where a bisection over [1, 10^9] took 30.
-    const double z = one_rate::two_sided_z(level);
-    double lo = std::max(1.0, std::floor(z * z * rate * (1 - rate) / (half * half))), hi = lo;
-    while (lo > 1 && meets(lo)) lo = std::max(1.0, std::floor(lo / 4));
-    while (!meets(hi)) {
-        if (hi >= max_attempts) beyond_cap("attempts");
-        hi = std::min(max_attempts, 4 * hi);
-    }
-    if (!meets(lo)) {
-        std::uintmax_t iterations = 100;
-        const auto root = boost::math::tools::toms748_solve([&](double n) { return envelope(n) - half; }, lo, hi,
-                                                            [](double a, double b) { return b - a < 0.5; }, iterations);
-        lo = std::ceil(root.first);
-        while (!meets(lo)) ++lo;  // at most a step or two: the bracket is narrower than one attempt
-    }
-    auto n = static_cast<std::int64_t>(lo);
+    auto n = first_possible(rate, half, level, how);
     const auto cap = static_cast<std::int64_t>(max_attempts);
     // Whole counts: step up until the interval itself is narrow enough. The
     // whole count x stays the same for about 1 / rate attempts; while x is at
@@ -135,11 +149,9 @@ std::int64_t width(double rate, double half, double level, one_rate::method how)
             auto end = std::min(cap, static_cast<std::int64_t>(std::ceil((x + 0.5) / rate)));
             while (end > n && count_at(end) != x) --end;
             if (end > n) {
-                if (!narrow_enough(end)) {
-                    n = end + 1;
-                    continue;
-                }
-                return first_meeting(n, end, narrow_enough);
+                if (narrow_enough(end)) return first_meeting(n, end, narrow_enough);
+                n = end + 1;
+                continue;
             }
         }
         if (narrow_enough(n)) return n;
@@ -211,15 +223,7 @@ std::int64_t ahead(const bayes::beta_law& pilot, const bayes::beta_law& other, d
     const auto meets = [&](std::int64_t m) {
         return bayes::ahead_absolute({pilot.a + static_cast<double>(m), pilot.b}, other) >= confidence;
     };
-    if (meets(0)) return 0;
-    const auto cap = static_cast<std::int64_t>(max_attempts);
-    std::int64_t low = 1, high = 1;
-    while (!meets(high)) {
-        if (high >= cap) beyond_cap("further successes");
-        low = high + 1;
-        high = std::min(cap, 2 * high);
-    }
-    return first_meeting(low, high, meets);
+    return meets(0) ? 0 : first_meeting_from(1, meets, "further successes");
 }
 
 }  // namespace tallyrates::planning
