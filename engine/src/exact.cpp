@@ -10,32 +10,55 @@
 //
 // The network: levels of groups with the cumulative success count as node.
 // Each node holds buckets of partial statistic values [lo, hi] with their
-// probability. Buckets closer than `merge_width` (relative to the observed
-// statistic) are merged, keeping the union interval, so results are
-// certified: p_low counts only tables proven extreme, p_high adds the tables
-// that could not be decided. With the default width 1e-9 every bucket is far
-// narrower than the 1e-7 tie tolerance and p is the exact answer.
-// Pruning on both sides (methods.md): `reach` bounds what the groups after a
-// level can still add; a bucket whose every completion is extreme adds its
-// whole probability at once (the completions' conditional probabilities sum
-// to 1), one with no extreme completion is dropped.
+// probability, sorted by lo. Buckets closer than `merge_width` (relative to
+// the observed statistic) are merged, keeping the union interval, so results
+// are certified: p_low counts only tables proven extreme, p_high adds the
+// tables that could not be decided. With the default width 1e-9 every bucket
+// is far narrower than the 1e-7 tie tolerance and p is the exact answer.
+// Pruning on both sides (methods.md): `reach` bounds what the other groups
+// can still add; a bucket whose every completion is extreme adds its whole
+// probability at once (the completions' conditional probabilities sum to 1),
+// one with no extreme completion is dropped.
+//
+// Building a level: node j of the next level receives, from each node s of
+// this one, that node's list shifted by the term of x = j - s and scaled by
+// P(x | s). Each such run is already sorted, so the node is a k-way merge of
+// its runs (rounds of two-way merges, Knuth 1998, TAOCP vol. 3, 5.4.1),
+// merged within the width as it is written: no sort at all. The part of a
+// run that is surely extreme is one suffix sum of its weights.
 //
 // Meet in the middle (the split-and-join of subset sums, Horowitz & Sahni
-// 1974, JACM 21:277, applied to the network): the first half of the groups
-// goes forward, the second half backward (the same pass, over the groups in
-// reverse order), each pruned; the halves are joined per split of the
-// successes with P(table) = P(first half) P(second half) / P(second half's
-// total). A one-way pass spends most of its time in the late levels, where
-// the lists of partial values grow fastest.
+// 1974, JACM 21:277, applied to the network): one pass takes groups from the
+// front, the other from the back (the same pass over the groups in reverse
+// order), each pruned by the exact minimum and maximum of what all the other
+// groups can add per success count, so neither pass needs the other's
+// lists. The pass whose next level reads fewer buckets (its list sizes now,
+// times the values its next group can take) takes that group, so the halves
+// end balanced by measured sizes rather than by group counts. The one group
+// left between them is summed over in the join, never stored:
+// P(table) = P(front part) P(x | front part) P(back part) / P(back total),
+// walking the sorted front and back lists with moving pointers over the band
+// of front buckets where the outcome is open.
 //
-// Work unit: one bucket carried across one value of x, one per support point
-// of each conditional law built, and m log2 m per sort of m buckets (about
-// 5-7 ns each on this project's machine). The cap makes the cost deterministic.
+// Threads: each level (and the join) is cut into chunks of destination nodes
+// by the input they read; the chunks are the same whatever the thread count,
+// each is computed alone and the sums are added in node order, so p, its
+// bounds and every refusal are bit for bit the same with 1 or 2 threads.
+//
+// Work unit: one law value built, one bucket moved by a merge round, one step
+// of a search, one front bucket walked in the join (four units). On this
+// project's 2-core machine a unit takes 1.3-2 ns with two threads
+// (bench_exact). The cap makes the cost deterministic; memory is capped in
+// buckets held at once (24 bytes each), merge buffers included.
 #include <algorithm>
+#include <array>
+#include <atomic>
 #include <bit>
 #include <cmath>
 #include <limits>
+#include <new>
 #include <numeric>
+#include <thread>
 
 #include "detail/hypergeometric.hpp"
 #include "detail/terms.hpp"
@@ -52,20 +75,45 @@ constexpr double inf = std::numeric_limits<double>::infinity();
 struct bucket {
     double lo, hi, w;
 };
-using node = std::vector<bucket>;
-
-// Weight of the buckets from index b on, for every b (one more entry, 0).
-void suffix_sums(const node& list, std::vector<double>& suffix) {
-    suffix.assign(list.size() + 1, 0.0);
-    for (std::size_t b = list.size(); b-- > 0;) suffix[b] = suffix[b + 1] + list[b].w;
-}
 
 // Index of the first bucket with lo >= c in a list sorted by lo.
-std::size_t first_from(const node& list, double c) {
+std::size_t first_from(const bucket* list, std::size_t n, double c) {
     return static_cast<std::size_t>(
-        std::lower_bound(list.begin(), list.end(), c, [](const bucket& b, double v) { return b.lo < v; }) -
-        list.begin());
+        std::lower_bound(list, list + n, c, [](const bucket& b, double v) { return b.lo < v; }) - list);
 }
+
+// The same index, found by moving from p: a few steps when c moves little
+// from one call to the next, as it does along a sorted list.
+std::size_t move_to(const bucket* list, std::size_t n, std::size_t p, double c) {
+    while (p > 0 && list[p - 1].lo >= c) --p;
+    while (p < n && list[p].lo < c) ++p;
+    return p;
+}
+
+// The nodes of one level of a pass: node i's buckets are first(i) ..
+// first(i) + size(i), sorted by lo, stored in the parts written by the
+// chunks that built the level (never copied); start[i] counts the buckets of
+// the nodes before i. sure[i] is node i's mass already known to be extreme
+// whatever the other half holds (kept by the back pass only). A new level is
+// the empty table: one node, one bucket of value 0, probability 1.
+struct level {
+    std::vector<std::vector<bucket>> parts;
+    std::vector<const bucket*> at;
+    std::vector<std::size_t> start{0};
+    std::vector<double> sure;
+    static level empty_table() {
+        level l;
+        l.parts.push_back({{0.0, 0.0, 1.0}});
+        l.at.push_back(l.parts[0].data());
+        l.start.push_back(1);
+        l.sure.push_back(0.0);
+        return l;
+    }
+    std::size_t nodes() const { return at.size(); }
+    std::size_t total() const { return start.back(); }
+    std::size_t size(std::size_t i) const { return start[i + 1] - start[i]; }
+    const bucket* first(std::size_t i) const { return at[i]; }
+};
 
 // The groups of one pass, in the order it takes them, and the successes that
 // can have been placed after each of its levels (level k has taken k groups).
@@ -129,9 +177,9 @@ reach reach_of(const pass_plan& plan, const table& t, const std::vector<detail::
     return r;
 }
 
-// Work before the forward pass: the term tables (lgamma calls for the
-// probability ordering cost about 16 units a value) and the forward reach
-// (every (node, x) pair once).
+// Work before the enumeration: the term tables (lgamma calls for the
+// probability ordering cost about 16 units a value) and the reach of both
+// passes (every (node, x) pair once each).
 double setup_work(const table& t, ordering o) {
     const double S = static_cast<double>(t.successes), N = static_cast<double>(t.attempts);
     double work = 0, placed = 0;
@@ -140,45 +188,172 @@ double setup_work(const table& t, ordering o) {
         const double hi = std::min<double>(S, placed);
         // x ranges over at most min(n_k, S, N - S) + 1 values at each node.
         const double xs = std::min({static_cast<double>(t.n[k]), S, N - S});
-        work += (hi - lo + 1) * (xs + 1) + (xs + 1) * (o == ordering::probability ? 16 : 2);
+        work += 2 * (hi - lo + 1) * (xs + 1) + (xs + 1) * (o == ordering::probability ? 16 : 2);
         placed += static_cast<double>(t.n[k]);
     }
     return work;
 }
 
-// The buckets of every node of one level, and for the backward pass the mass
-// per node already known to be extreme whatever the forward half holds.
-struct level {
-    std::vector<node> nodes;
-    std::vector<double> sure;
+// One pass: its plan over all the groups, the bounds on what the groups it
+// has not taken can add, and the level it has reached (k groups taken).
+struct pass {
+    pass_plan plan;
+    reach bound;
+    bool back;  // the back pass keeps surely extreme mass per node
+    level cur = level::empty_table();
+    std::size_t k = 0;
 };
+
+// A run into one destination node: a source list from `at` to `end`, shifted
+// by the term v and scaled by P(x | s); buckets with hi < never_below (no
+// extreme completion) are skipped.
+struct run {
+    const bucket* at;
+    const bucket* end;
+    double v, hx, never_below;
+};
+
+// Appends c to the node that starts at out[first], merging it into the last
+// bucket when the union stays within `width` (the buckets come in order of lo).
+inline void put(std::vector<bucket>& out, std::size_t first, const bucket& c, double width) {
+    if (out.size() > first) {
+        bucket& m = out.back();
+        if (std::max(m.hi, c.hi) - m.lo <= width) {
+            m.hi = std::max(m.hi, c.hi);
+            m.w += c.w;
+            return;
+        }
+    }
+    out.push_back(c);
+}
+
+// The k-way merge of the runs into one node, as rounds of two-way merges of
+// neighbouring runs (a balanced merge tree, Knuth 1998, TAOCP vol. 3,
+// 5.4.1): each bucket is moved once per round, log2(runs) rounds, with no
+// data-dependent branch in the inner loop (a heap of run heads spent most of
+// its time on mispredicted comparisons). Ties keep the order of the runs, so
+// the output depends on the inputs only.
+class merger {
+public:
+    std::vector<run> runs;
+
+    // Writes the node; returns its work (buckets moved, one per round).
+    std::uint64_t merge(std::vector<bucket>& out, double width) {
+        a_.clear();
+        ends_.clear();
+        for (const run& r : runs) {
+            for (const bucket* p = r.at; p != r.end; ++p)
+                if (p->hi >= r.never_below) a_.push_back({p->lo + r.v, p->hi + r.v, p->w * r.hx});
+            if (a_.size() > (ends_.empty() ? 0 : ends_.back())) ends_.push_back(a_.size());
+        }
+        const std::size_t n = a_.size();
+        std::uint64_t work = n + runs.size();
+        while (ends_.size() > 1) {
+            if (b_.size() < n) b_.resize(n);
+            next_.clear();
+            std::size_t from = 0;
+            for (std::size_t r = 0; r < ends_.size(); r += 2) {
+                const std::size_t mid = ends_[r], to = r + 1 < ends_.size() ? ends_[r + 1] : mid;
+                merge_two(a_.data() + from, a_.data() + mid, a_.data() + to, b_.data() + from);
+                next_.push_back(to);
+                from = to;
+            }
+            std::swap(a_, b_);
+            a_.resize(n);
+            std::swap(ends_, next_);
+            work += n;
+        }
+        const std::size_t first = out.size();
+        for (std::size_t k = 0; k < n; ++k) put(out, first, a_[k], width);
+        return work;
+    }
+
+private:
+    // [x, mid) and [mid, end), each sorted by lo, into dst; ties take the first.
+    static void merge_two(const bucket* x, const bucket* mid, const bucket* end, bucket* dst) {
+        const bucket* y = mid;
+        while (x != mid && y != end) {
+            const bool take_y = y->lo < x->lo;
+            *dst++ = *(take_y ? y : x);
+            y += take_y;
+            x += !take_y;
+        }
+        dst = std::copy(x, mid, dst);
+        std::copy(y, end, dst);
+    }
+
+    std::vector<bucket> a_, b_;
+    std::vector<std::size_t> ends_, next_;
+};
+
+// A chunk of the destination nodes of a level, built on its own: the
+// buckets, their count and the surely extreme mass per node, its work, and
+// why it stopped (0 it did not, 1 work cap, 2 memory cap).
+struct chunk {
+    std::size_t from = 0, to = 0;
+    std::vector<bucket> out;
+    std::vector<std::size_t> count;
+    std::vector<double> sure;
+    double bound = 0;    // at most this many buckets (those its nodes read)
+    double largest = 0;  // the most one of its nodes reads
+    std::uint64_t work = 0;
+    int failed = 0;
+};
+
+// The conditional law of the next group at one source node: its values are
+// law_values[at + x - first] for x in [first, last] (empty: first > last).
+struct law {
+    std::size_t at = 0;
+    std::int64_t first = 1, last = 0;
+};
+
+// Chunk boundaries over [0, D) (D + 1 of them or fewer) cutting `cost` (one
+// entry per item) into `parts` nearly equal shares. The cut depends on the
+// costs only, never on the thread count.
+std::vector<std::size_t> cut(const std::vector<double>& cost, std::size_t parts) {
+    const double total = std::accumulate(cost.begin(), cost.end(), 0.0);
+    std::vector<std::size_t> at{0};
+    double run_sum = 0;
+    for (std::size_t d = 0; d < cost.size() && at.size() < parts; ++d) {
+        run_sum += cost[d];
+        if (run_sum >= total * static_cast<double>(at.size()) / static_cast<double>(parts)) at.push_back(d + 1);
+    }
+    if (at.back() != cost.size()) at.push_back(cost.size());
+    return at;
+}
+
+// Inputs whose levels are cut in two (about 0.1 ms of work): below it a
+// second thread costs more to start than it saves.
+constexpr double split_above = 30'000;
+// The join's work is cut finer, so that threads taking chunks as they free
+// up end together.
+constexpr std::size_t join_chunks = 32;
 
 class network {
 public:
     network(const table& t, ordering o, std::uint64_t work_cap, std::size_t max_buckets, double merge_width,
-            exact_outcome& out)
-        : t_(t), o_(o), work_cap_(work_cap), max_buckets_(max_buckets), merge_width_(merge_width), out_(out) {}
+            unsigned threads, exact_outcome& out)
+        : t_(t), o_(o), work_cap_(work_cap), max_buckets_(max_buckets), merge_width_(merge_width),
+          threads_(std::max(1u, threads)), out_(out) {}
 
     // The whole enumeration; false (with out_.stopped) when a cap stops it.
     bool run() {
         if (!prepare()) return false;
-        const std::size_t G = t_.groups(), h = G / 2;
-        std::vector<std::size_t> all(G);
-        std::iota(all.begin(), all.end(), std::size_t{0});
-        // Forward over groups 0..h-1, pruned by what every later group can add.
-        const pass_plan whole(t_, all);
-        const reach ahead = reach_of(whole, t_, terms_, {0.0}, {0.0});
-        const pass_plan fwd(t_, std::vector<std::size_t>(all.begin(), all.begin() + static_cast<std::ptrdiff_t>(h)));
-        level front{{node{{0.0, 0.0, 1.0}}}, {}};
-        if (!advance(fwd, ahead, front, false)) return false;
-        // Backward over groups G-1..h, pruned against the forward buckets left
-        // at the middle. Forward prefixes already counted are no longer among
-        // them, so nothing is counted twice.
-        const pass_plan bwd(t_, std::vector<std::size_t>(all.rbegin(), all.rend() - static_cast<std::ptrdiff_t>(h)));
-        const reach behind = backward_reach(bwd, fwd, front);
-        level back{{node{{0.0, 0.0, 1.0}}}, {0.0}};
-        if (!advance(bwd, behind, back, true)) return false;
-        return join(fwd, front, bwd, back);
+        const std::size_t G = t_.groups();
+        std::vector<std::size_t> order(G);
+        std::iota(order.begin(), order.end(), std::size_t{0});
+        pass front{pass_plan(t_, order), {}, false};
+        std::reverse(order.begin(), order.end());
+        pass back{pass_plan(t_, order), {}, true};
+        front.bound = reach_of(front.plan, t_, terms_, {0.0}, {0.0});
+        back.bound = reach_of(back.plan, t_, terms_, {0.0}, {0.0});
+        while (front.k + back.k + 1 < G) {
+            // The side whose next level reads fewer buckets takes the next group.
+            pass& p = next_cost(front) <= next_cost(back) ? front : back;
+            pass& other = &p == &front ? back : front;
+            if (!step(p, other.cur.total())) return false;
+        }
+        return join(front, back);
     }
 
 private:
@@ -214,147 +389,314 @@ private:
         return true;
     }
 
-    // Sorts each node's buckets by lo and merges those within `width_`,
-    // keeping the union interval. False when memory would pass the cap.
-    // Merging is idempotent, so a level that grows past the cap while it is
-    // built is merged early: memory stays near 2 x max_buckets buckets (this
-    // level and the one before).
-    bool merge(std::vector<node>& nodes) {
-        std::size_t live = 0;
-        for (auto& list : nodes) {
-            if (list.size() > 1) {
-                // Sorting is a large share of the cost: charge m log2 m.
-                out_.work += list.size() * static_cast<std::uint64_t>(std::bit_width(list.size()));
-                std::sort(list.begin(), list.end(), [](const bucket& a, const bucket& b) { return a.lo < b.lo; });
-                std::size_t w = 0;
-                for (std::size_t r = 1; r < list.size(); ++r) {
-                    bucket& m = list[w];
-                    const bucket& c = list[r];
-                    if (std::max(m.hi, c.hi) - m.lo <= width_) {
-                        m.hi = std::max(m.hi, c.hi);
-                        m.w += c.w;
-                    } else {
-                        list[++w] = c;
-                    }
-                }
-                list.resize(w + 1);
+    bool over_memory() {
+        out_.stopped = "the exact enumeration needs more than " + format_number(static_cast<double>(max_buckets_)) +
+                       " partial results in memory at once";
+        return false;
+    }
+
+    // Buckets the pass's next level reads, times the values its group takes.
+    double next_cost(const pass& p) const {
+        if (p.k == p.plan.levels()) return inf;
+        const double S = static_cast<double>(t_.successes), F = static_cast<double>(t_.attempts - t_.successes);
+        const double xs = std::min({static_cast<double>(t_.n[p.plan.groups[p.k]]), S, F});
+        return static_cast<double>(p.cur.total()) * (xs + 1);
+    }
+
+    // The next group's law at every live node of the pass's level, and the
+    // suffix sums of each node's weights (node i's from suffix_[start[i] + i]).
+    void build_laws(const pass& p) {
+        const std::size_t k = p.k, g = p.plan.groups[k];
+        const level& cur = p.cur;
+        laws_.assign(cur.nodes(), law{});
+        law_values_.clear();
+        suffix_.resize(cur.total() + cur.nodes());
+        for (std::size_t i = 0; i < cur.nodes(); ++i) {
+            const std::size_t n = cur.size(i), base = cur.start[i] + i;
+            const bucket* list = cur.first(i);
+            suffix_[base + n] = 0.0;
+            for (std::size_t b = n; b-- > 0;) suffix_[base + b] = suffix_[base + b + 1] + list[b].w;
+            if (n == 0 && cur.sure[i] == 0.0) continue;
+            const std::int64_t s = p.plan.lo[k] + static_cast<std::int64_t>(i);
+            const auto sup =
+                detail::hypergeometric_pmf(t_.attempts - p.plan.used[k], t_.successes - s, t_.n[g], pmf_);
+            laws_[i] = {law_values_.size(), sup.first, sup.last};
+            law_values_.insert(law_values_.end(), pmf_.begin(), pmf_.end());
+            out_.work += pmf_.size() + n;
+        }
+    }
+
+    // Node d of the pass's next level into `out`; returns the mass that
+    // becomes surely extreme there. A bucket is extreme for sure when
+    // lo + v + mn >= thr and never when hi + v + mx < thr, where mn / mx bound
+    // what the groups not yet taken add.
+    double build_node(const pass& p, std::size_t d, std::vector<bucket>& out, merger& m,
+                      std::uint64_t& work) const {
+        const std::size_t k = p.k, g = p.plan.groups[k];
+        const std::int64_t j = p.plan.lo[k + 1] + static_cast<std::int64_t>(d);
+        const std::int64_t s_from = std::max(p.plan.lo[k], j - t_.n[g]), s_to = std::min(p.plan.hi[k], j);
+        const double mn = p.bound.mn[k + 1][d], mx = p.bound.mx[k + 1][d];
+        double sure = 0.0;
+        m.runs.clear();
+        for (std::int64_t s = s_from; s <= s_to; ++s) {
+            const auto i = static_cast<std::size_t>(s - p.plan.lo[k]);
+            const law& l = laws_[i];
+            const std::int64_t x = j - s;
+            if (x < l.first || x > l.last) continue;
+            const double hx = law_values_[l.at + static_cast<std::size_t>(x - l.first)];
+            if (hx == 0.0) continue;
+            const double v = terms_[g][x];
+            const bucket* list = p.cur.first(i);
+            const std::size_t n = p.cur.size(i);
+            const std::size_t sure_from = first_from(list, n, thr_ - v - mn);
+            sure += hx * (suffix_[p.cur.start[i] + i + sure_from] + p.cur.sure[i]);
+            // hi <= lo + width up to rounding: no bucket before `a` reaches never_below.
+            const double never_below = thr_ - v - mx;
+            const std::size_t a = first_from(list, sure_from, never_below - 2 * width_ - 1e-12 * std::fabs(never_below));
+            work += 2 * static_cast<std::uint64_t>(std::bit_width(n)) + (sure_from - a);
+            if (a < sure_from) m.runs.push_back({list + a, list + sure_from, v, hx, never_below});
+        }
+        work += m.merge(out, width_);
+        return sure;
+    }
+
+    // Builds the chunk's nodes; stops early once it alone passes the work
+    // left (`budget`) or the buckets memory has room for (`room`).
+    void build_chunk(const pass& p, chunk& c, std::uint64_t budget, std::size_t room) const {
+        merger m;
+        try {
+            // Reserved, not touched: pages not written cost no memory. The
+            // chunk stops once past `room`, so with one node's worth more the
+            // buckets never move once written (the level points at them).
+            c.out.reserve(static_cast<std::size_t>(std::min(c.bound, static_cast<double>(room) + c.largest)));
+            for (std::size_t d = c.from; d < c.to; ++d) {
+                const std::size_t before = c.out.size();
+                c.sure.push_back(build_node(p, d, c.out, m, c.work));
+                c.count.push_back(c.out.size() - before);
+                if (c.work > budget) c.failed = 1;
+                if (c.out.size() > room) c.failed = 2;
+                if (c.failed != 0) return;
             }
-            live += list.size();
+        } catch (const std::bad_alloc&) {
+            c.failed = 2;  // never let an exception leave a worker thread
         }
-        pending_ = live;
-        if (live > max_buckets_) {
-            out_.stopped = "the exact enumeration needs more than " +
-                           format_number(static_cast<double>(max_buckets_)) + " partial results in memory at once";
-            return false;
+    }
+
+    // Runs job(0) ... job(n - 1), on up to threads_ threads, each taking the
+    // next job not yet taken. Jobs write only their own results, so which
+    // thread runs which job changes nothing.
+    template <class F>
+    void on_threads(std::size_t n, F job) const {
+        const auto use = static_cast<unsigned>(std::min<std::size_t>(threads_, n));
+        if (use <= 1) {
+            for (std::size_t c = 0; c < n; ++c) job(c);
+            return;
         }
+        std::atomic<std::size_t> next{0};
+        auto worker = [&] {
+            for (std::size_t c = next++; c < n; c = next++) job(c);
+        };
+        std::vector<std::thread> helpers;
+        for (unsigned id = 1; id < use; ++id) helpers.emplace_back(worker);
+        worker();
+        for (auto& h : helpers) h.join();
+    }
+
+    // The chunks of the pass's next level, cut by the buckets each node
+    // reads, which also bound the buckets it can hold.
+    std::vector<chunk> level_chunks(const pass& p) const {
+        const std::size_t k = p.k, g = p.plan.groups[k], W = p.cur.nodes();
+        std::vector<double> before(W + 1, 0.0);  // buckets (plus one) of the nodes below i
+        for (std::size_t i = 0; i < W; ++i) before[i + 1] = before[i] + static_cast<double>(p.cur.size(i) + 1);
+        std::vector<double> cost(p.plan.width(k + 1));
+        for (std::size_t d = 0; d < cost.size(); ++d) {
+            const std::int64_t j = p.plan.lo[k + 1] + static_cast<std::int64_t>(d);
+            const std::int64_t a = std::max(p.plan.lo[k], j - t_.n[g]), b = std::min(p.plan.hi[k], j);
+            if (a <= b) cost[d] = before[static_cast<std::size_t>(b - p.plan.lo[k] + 1)] -
+                                  before[static_cast<std::size_t>(a - p.plan.lo[k])];
+        }
+        const double total = before[W] * static_cast<double>(std::min<std::int64_t>(t_.n[g], t_.successes) + 1);
+        const auto at = cut(cost, total > split_above ? 2 : 1);
+        std::vector<chunk> chunks(at.size() - 1);
+        for (std::size_t c = 0; c < chunks.size(); ++c) {
+            chunks[c].from = at[c];
+            chunks[c].to = at[c + 1];
+            const auto from = cost.begin() + static_cast<std::ptrdiff_t>(at[c]);
+            const auto to = cost.begin() + static_cast<std::ptrdiff_t>(at[c + 1]);
+            chunks[c].bound = std::accumulate(from, to, 0.0);
+            chunks[c].largest = from == to ? 0.0 : *std::max_element(from, to);
+        }
+        return chunks;
+    }
+
+    // Takes the pass's next group. `other` is the size of the other pass's
+    // level, held in memory meanwhile.
+    bool step(pass& p, std::size_t other) {
+        build_laws(p);
+        if (over_cap()) return false;
+        const std::size_t held = other + p.cur.total() + (law_values_.size() + suffix_.size()) / 3;
+        if (held > max_buckets_) return over_memory();
+        auto chunks = level_chunks(p);
+        const std::uint64_t budget = work_cap_ - out_.work;
+        // Each chunk may fill the room left in proportion to what it reads, so
+        // that together they never pass the cap.
+        double bound = 0;
+        for (const auto& c : chunks) bound += c.bound;
+        on_threads(chunks.size(), [&](std::size_t c) {
+            // The merge buffers hold two copies of one node's input.
+            const double share = bound > 0 ? chunks[c].bound / bound : 1.0;
+            const double room = static_cast<double>(max_buckets_ - held) * share - 2 * chunks[c].largest;
+            if (room < 0)
+                chunks[c].failed = 2;
+            else
+                build_chunk(p, chunks[c], budget, static_cast<std::size_t>(room));
+        });
+        level next;
+        for (auto& c : chunks) {
+            out_.work += c.work;
+            if (c.failed == 1) {
+                over_cap();  // c.work > budget: the cap is passed, and says so
+                return false;
+            }
+            if (c.failed == 2) return over_memory();
+            const bucket* at = c.out.data();
+            for (std::size_t d = 0; d < c.count.size(); ++d) {
+                next.at.push_back(at);
+                at += c.count[d];
+                next.start.push_back(next.start.back() + c.count[d]);
+                // The front pass's weights are whole chains: their sure mass is final.
+                next.sure.push_back(p.back ? c.sure[d] : 0.0);
+                if (!p.back) p_sure_ += c.sure[d];
+            }
+            next.parts.push_back(std::move(c.out));  // moving keeps the buckets where they are
+        }
+        if (over_cap()) return false;
+        if (held + next.total() > max_buckets_) return over_memory();
+        p.cur = std::move(next);
+        ++p.k;
         return true;
     }
 
-    // Carries one node's buckets (and its mass already known to be extreme,
-    // `node_sure`) across every x of a group whose conditional law is in
-    // pmf_/sup. A bucket whose every completion is extreme becomes mass in
-    // `sure`; one with no extreme completion is dropped; the rest go to
-    // dst[j]. `mn`/`mx` bound what the groups after this one add.
-    void carry(node& list, double node_sure, const detail::term_row& term, const detail::hypergeometric_support& sup,
-               std::int64_t from, std::int64_t dst_lo, const std::vector<double>& mn, const std::vector<double>& mx,
-               std::vector<node>& dst, double* sure, bool sure_per_node) {
-        out_.work += pmf_.size();
-        suffix_sums(list, suffix_);
+    // The join at front node i (s successes), with the middle group taking x
+    // successes with probability hx and the back part the rest, t: sums over
+    // the front buckets f of P(f) hx P(back part) / q(t) for back buckets
+    // whose lo is at least thr - v - f.lo (surely extreme), thr - v - f.hi -
+    // width (possibly extreme) and thr - v - mid(f) (extreme at representative
+    // values), walking both sorted lists; v is the middle group's term.
+    struct middle {
+        std::size_t bi;      // the back node
+        double v, hx, q;     // the middle group's term, its probability, P(back total)
+        std::size_t a0, a1;  // the band of front buckets to walk (see join_node)
+    };
+    std::array<double, 3> join_node(const pass& F, const pass& B, std::size_t i,
+                                    const std::vector<middle>& at) const {
+        const bucket* fl = F.cur.first(i);
+        const std::size_t nf = F.cur.size(i);
+        std::vector<double> front_suffix(nf + 1, 0.0);
+        for (std::size_t a = nf; a-- > 0;) front_suffix[a] = front_suffix[a + 1] + fl[a].w;
+        double sure = 0.0, open = 0.0, at_mid = 0.0;
+        for (const middle& m : at) {
+            const bucket* bl = B.cur.first(m.bi);
+            const std::size_t nb = B.cur.size(m.bi);
+            const double* suffix = back_suffix_.data() + B.cur.start[m.bi] + m.bi;
+            const double c = thr_ - m.v, scale = m.hx / m.q;
+            sure += B.cur.sure[m.bi] * front_suffix[0] * scale;
+            if (nb == 0) continue;
+            const std::size_t a0 = m.a0, a1 = m.a1;
+            double s_yes = front_suffix[a1] * suffix[0], s_open = 0.0, s_mid = 0.0;
+            std::size_t yes = a0 < a1 ? first_from(bl, nb, c - fl[a0].lo) : 0;
+            for (std::size_t a = a0; a < a1; ++a) {
+                const bucket& f = fl[a];
+                yes = move_to(bl, nb, yes, c - f.lo);
+                // The other two lie just below `yes`, mostly at it: two
+                // comparisons each from there.
+                const std::size_t maybe = move_to(bl, nb, yes, c - f.hi - width_);
+                const std::size_t mid = move_to(bl, nb, yes, c - 0.5 * (f.lo + f.hi));
+                const double y = suffix[yes];
+                s_yes += f.w * y;
+                s_open += f.w * (suffix[maybe] - y);
+                s_mid += f.w * (suffix[mid] - y);
+            }
+            sure += s_yes * scale;
+            open += s_open * scale;
+            at_mid += s_mid * scale;
+        }
+        return {sure, open, at_mid};
+    }
+
+    // The pairs (back node, middle term) that front node i meets, and the
+    // work of walking them.
+    std::vector<middle> meetings(const pass& F, const pass& B, std::size_t i, const detail::hypergeometric_support& q_sup,
+                                 const std::vector<double>& q, double& cost) {
+        const std::size_t f = F.k, b = B.k, g = F.plan.groups[f];
+        const std::int64_t s = F.plan.lo[f] + static_cast<std::int64_t>(i);
+        std::vector<middle> out;
+        cost += static_cast<double>(F.cur.size(i));  // its suffix sums
+        const auto sup = detail::hypergeometric_pmf(t_.attempts - F.plan.used[f], t_.successes - s, t_.n[g], pmf_);
         for (std::int64_t x = sup.first; x <= sup.last; ++x) {
             const double hx = pmf_[static_cast<std::size_t>(x - sup.first)];
-            if (hx == 0.0) continue;
-            const double v = term[x];
-            const std::size_t j = static_cast<std::size_t>(from + x - dst_lo);
-            // Extreme for sure when lo + v + mn >= thr; never when hi + v + mx < thr.
-            // Buckets are sorted by lo, and hi <= lo + width.
-            const std::size_t first_sure = first_from(list, thr_ - v - mn[j]);
-            const double never_below = thr_ - v - mx[j];
-            (sure_per_node ? sure[j] : *sure) += hx * (suffix_[first_sure] + node_sure);
-            auto& out_node = dst[j];
-            for (std::size_t b = 0; b < first_sure; ++b) {
-                const bucket& src = list[b];
-                if (src.hi < never_below) continue;
-                out_node.push_back({src.lo + v, src.hi + v, src.w * hx});
+            const std::int64_t tt = t_.successes - s - x;
+            if (hx == 0.0 || tt < B.plan.lo[b] || tt > B.plan.hi[b] || tt < q_sup.first || tt > q_sup.last) continue;
+            const auto bi = static_cast<std::size_t>(tt - B.plan.lo[b]);
+            const double qt = q[static_cast<std::size_t>(tt - q_sup.first)];
+            if ((B.cur.size(bi) == 0 && B.cur.sure[bi] == 0.0) || qt == 0.0) continue;
+            // Front buckets below a0 meet no back bucket that could be
+            // extreme; from a1 on they meet only surely extreme ones. Only
+            // the band between needs a walk.
+            const bucket* fl = F.cur.first(i);
+            const bucket* bl = B.cur.first(bi);
+            const std::size_t nf = F.cur.size(i), nb = B.cur.size(bi);
+            const double v = terms_[g][x], c = thr_ - v;
+            std::size_t a0 = 0, a1 = 0;
+            if (nb > 0) {
+                const double top = c - bl[nb - 1].lo - 2 * width_;
+                a0 = first_from(fl, nf, top - 1e-12 * std::fabs(top));
+                a1 = first_from(fl, nf, c - bl[0].lo);
             }
-            pending_ += first_sure;
-            out_.work += first_sure;
+            out.push_back({bi, v, hx, qt, a0, a1});
+            cost += static_cast<double>(4 * (a1 - a0) + 2 * std::bit_width(nf) + std::bit_width(nb));
         }
-        node().swap(list);
+        return out;
     }
 
-    // Runs a pass from its first level to its last. The forward pass adds
-    // surely extreme mass to p_sure_ at once (its weights are complete
-    // conditional chains); the backward pass keeps it per node (`per_node`),
-    // to be joined with the forward half.
-    bool advance(const pass_plan& plan, const reach& bound, level& cur, bool per_node) {
-        for (std::size_t k = 0; k < plan.levels(); ++k) {
-            const std::size_t g = plan.groups[k];
-            level next{std::vector<node>(plan.width(k + 1)), {}};
-            if (per_node) next.sure.assign(next.nodes.size(), 0.0);
-            pending_ = 0;
-            for (std::int64_t s = plan.lo[k]; s <= plan.hi[k]; ++s) {
-                const auto at = static_cast<std::size_t>(s - plan.lo[k]);
-                const double node_sure = per_node ? cur.sure[at] : 0.0;
-                if (cur.nodes[at].empty() && node_sure == 0.0) continue;
-                const auto sup =
-                    detail::hypergeometric_pmf(t_.attempts - plan.used[k], t_.successes - s, t_.n[g], pmf_);
-                carry(cur.nodes[at], node_sure, terms_[g], sup, s, plan.lo[k + 1], bound.mn[k + 1], bound.mx[k + 1],
-                      next.nodes, per_node ? next.sure.data() : &p_sure_, per_node);
-                if (over_cap() || (pending_ > max_buckets_ && !merge(next.nodes))) return false;
-            }
-            if (!merge(next.nodes)) return false;
-            cur = std::move(next);
+    // The front pass has taken F.k groups, the back pass all but one of the
+    // rest; the group between them is summed over in the join:
+    // P(table) = P(front part) P(x | front part) P(back part) / P(back total).
+    bool join(const pass& F, const pass& B) {
+        const auto q_sup = detail::hypergeometric_pmf(t_.attempts, t_.successes, B.plan.used[B.k], pmf_);
+        const std::vector<double> q = pmf_;
+        const level& back = B.cur;
+        back_suffix_.resize(back.total() + back.nodes());
+        for (std::size_t i = 0; i < back.nodes(); ++i) {
+            const std::size_t n = back.size(i), base = back.start[i] + i;
+            back_suffix_[base + n] = 0.0;
+            for (std::size_t k = n; k-- > 0;) back_suffix_[base + k] = back_suffix_[base + k + 1] + back.first(i)[k].w;
         }
-        return true;
-    }
-
-    // The backward pass's reach ends in the forward buckets left at the
-    // middle: per total t of the backward groups, the smallest lo and largest
-    // hi of the forward node holding S - t.
-    reach backward_reach(const pass_plan& bwd, const pass_plan& fwd, const level& front) {
-        const std::size_t R = bwd.levels(), h = fwd.levels();
-        std::vector<double> end_mn(bwd.width(R), inf), end_mx(bwd.width(R), -inf);
-        for (std::int64_t tt = bwd.lo[R]; tt <= bwd.hi[R]; ++tt) {
-            const std::int64_t s_mid = t_.successes - tt;
-            if (s_mid < fwd.lo[h] || s_mid > fwd.hi[h]) continue;
-            const auto j = static_cast<std::size_t>(tt - bwd.lo[R]);
-            for (const bucket& f : front.nodes[static_cast<std::size_t>(s_mid - fwd.lo[h])]) {
-                end_mn[j] = std::min(end_mn[j], f.lo);
-                end_mx[j] = std::max(end_mx[j], f.hi);
-            }
+        std::vector<std::size_t> fronts;
+        std::vector<std::vector<middle>> at;
+        std::vector<double> cost;
+        for (std::size_t i = 0; i < F.cur.nodes(); ++i) {
+            if (F.cur.size(i) == 0) continue;
+            double c = 0.0;
+            auto m = meetings(F, B, i, q_sup, q, c);
+            if (m.empty()) continue;
+            fronts.push_back(i);
+            at.push_back(std::move(m));
+            cost.push_back(c);
         }
-        for (std::size_t r = 0; r < R; ++r)
-            out_.work += static_cast<std::uint64_t>(bwd.width(r)) * static_cast<std::uint64_t>(t_.n[bwd.groups[r]] + 1);
-        return reach_of(bwd, t_, terms_, std::move(end_mn), std::move(end_mx));
-    }
-
-    // P(table) = P(first half) P(second half) / P(second half total), summed
-    // per split of the successes: forward bucket f with backward buckets whose
-    // lo is at least thr - f.lo (surely extreme), thr - f.hi - width (possibly
-    // extreme) and thr - mid(f) (extreme at representative values).
-    bool join(const pass_plan& fwd, const level& front, const pass_plan& bwd, const level& back) {
-        const std::size_t h = fwd.levels(), R = bwd.levels();
-        const auto q_sup = detail::hypergeometric_pmf(t_.attempts, t_.successes, bwd.used[R], pmf_);
+        const double total = std::accumulate(cost.begin(), cost.end(), 0.0);
+        out_.work += static_cast<std::uint64_t>(total) + back.total();
+        if (over_cap()) return false;
+        std::vector<std::array<double, 3>> sums(fronts.size());
+        const auto cuts = cut(cost, total > split_above ? join_chunks : 1);
+        on_threads(cuts.size() - 1, [&](std::size_t c) {
+            for (std::size_t k = cuts[c]; k < cuts[c + 1]; ++k) sums[k] = join_node(F, B, fronts[k], at[k]);
+        });
         double p_open = 0.0, p_mid = 0.0;
-        for (std::int64_t s = fwd.lo[h]; s <= fwd.hi[h]; ++s) {
-            const auto& fl = front.nodes[static_cast<std::size_t>(s - fwd.lo[h])];
-            const std::int64_t tt = t_.successes - s;
-            if (fl.empty() || tt < bwd.lo[R] || tt > bwd.hi[R] || tt < q_sup.first || tt > q_sup.last) continue;
-            const auto& bl = back.nodes[static_cast<std::size_t>(tt - bwd.lo[R])];
-            const double always = back.sure[static_cast<std::size_t>(tt - bwd.lo[R])];
-            const double q = pmf_[static_cast<std::size_t>(tt - q_sup.first)];
-            if ((bl.empty() && always == 0.0) || q == 0.0) continue;
-            suffix_sums(bl, suffix_);
-            for (const bucket& f : fl) {
-                const double yes = suffix_[first_from(bl, thr_ - f.lo)];
-                const double maybe = suffix_[first_from(bl, thr_ - f.hi - width_)];
-                const double mid = suffix_[first_from(bl, thr_ - 0.5 * (f.lo + f.hi))];
-                p_sure_ += f.w * (yes + always) / q;
-                p_open += f.w * (maybe - yes) / q;
-                p_mid += f.w * (mid - yes) / q;
-            }
-            out_.work += fl.size() * 3 * static_cast<std::uint64_t>(std::bit_width(bl.size()));
-            if (over_cap()) return false;
+        for (const auto& s : sums) {
+            p_sure_ += s[0];
+            p_open += s[1];
+            p_mid += s[2];
         }
         out_.p_low = std::min(1.0, p_sure_);
         out_.p_high = std::min(1.0, p_sure_ + p_open);
@@ -367,12 +709,16 @@ private:
     const std::uint64_t work_cap_;
     const std::size_t max_buckets_;
     const double merge_width_;
+    const unsigned threads_;
     exact_outcome& out_;
     std::vector<detail::term_row> terms_;
     double thr_ = 0, width_ = 0;
     double p_sure_ = 0.0;
-    std::size_t pending_ = 0;  // buckets in the level being built, merged or not
-    std::vector<double> pmf_, suffix_;
+    // The level being built: the next group's law per source node, and the
+    // suffix sums of the source lists.
+    std::vector<law> laws_;
+    std::vector<double> law_values_, suffix_, pmf_;
+    std::vector<double> back_suffix_;  // suffix sums of the back level's lists, for the join
 };
 
 // Small groups first keeps early levels narrow; the p-value does not depend
@@ -393,7 +739,7 @@ table smallest_first(const table& t_in) {
 }  // namespace
 
 exact_outcome exact_p(const table& t_in, ordering o, std::uint64_t work_cap, std::size_t max_buckets,
-                      double merge_width) {
+                      double merge_width, unsigned threads) {
     exact_outcome out;
     if (t_in.all_alike()) {
         // One possible table: it is as extreme as itself.
@@ -402,7 +748,7 @@ exact_outcome exact_p(const table& t_in, ordering o, std::uint64_t work_cap, std
         return out;
     }
     const table t = smallest_first(t_in);
-    network net(t, o, work_cap, max_buckets, merge_width, out);
+    network net(t, o, work_cap, max_buckets, merge_width, threads, out);
     out.complete = net.run();
     return out;
 }

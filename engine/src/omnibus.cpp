@@ -7,7 +7,9 @@
 // default) as fit a second such cap. Work is counted in deterministic units,
 // so the route taken depends on the counts alone, never on machine speed.
 #include <boost/math/distributions/chi_squared.hpp>
+#include <algorithm>
 #include <cmath>
+#include <thread>
 
 #include "tallyrates/arguments.hpp"
 #include "tallyrates/errors.hpp"
@@ -54,6 +56,10 @@ result start(const table& t, const options& opt) {
     return r;
 }
 
+// The exact route shares its work among two threads where the machine has
+// them; its outcome does not depend on the number (exact.cpp).
+unsigned exact_threads() { return std::max(1u, std::min(2u, std::thread::hardware_concurrency())); }
+
 result chi_square(result& r, route used, std::string why) {
     r.used = used;
     r.p = chi_square_upper(r.statistic, r.df);
@@ -62,14 +68,20 @@ result chi_square(result& r, route used, std::string why) {
 }
 
 // "exact", "exact-lr", "exact-prob" asked by name: the answer, or a refusal
-// with certified bounds from a coarse pass where one fits.
+// with certified bounds from a coarse pass where one fits. The coarse pass
+// merges partial values within 1 % of the observed statistic and gets a
+// quarter of the cap, so a refusal costs at most 1.25 caps. Measured on
+// 2026-12-02: on the unequal 2 x 12 table of N = 500 (bench_exact) a 1 % grid
+// needs 9-25 times less work than the exact one, on tables a tenth as costly
+// 1-2.7 times; a 0.1 % grid needs at most 1.4 times less.
 result exact_as_asked(result r, const table& t, const options& opt) {
     r.used = route::exact;
     r.has_exact = true;
-    r.exact = exact_p(t, r.order, opt.caps.exact_work, opt.caps.max_buckets);
+    r.exact = exact_p(t, r.order, opt.caps.exact_work, opt.caps.max_buckets, 1e-9, exact_threads());
     if (!r.exact.complete) {
         exact_outcome coarse;  // pointless when the table is too large to start at all
-        if (!r.exact.too_large) coarse = exact_p(t, r.order, opt.caps.exact_work, opt.caps.max_buckets, 1e-3);
+        if (!r.exact.too_large)
+            coarse = exact_p(t, r.order, opt.caps.exact_work / 4, opt.caps.max_buckets, 1e-2, exact_threads());
         std::string bounds;
         if (coarse.complete)
             bounds = "; the exact p-value lies between " + format_short(coarse.p_low) + " and " +
@@ -102,7 +114,7 @@ result automatic(result r, const table& t, const options& opt) {
                           "Every expected count is at least 5, the smallest " + format_short(r.expected.smallest) +
                               ", so the chi-square approximation is used.");
     r.has_exact = true;
-    r.exact = exact_p(t, ordering::pearson, opt.caps.auto_exact_work, opt.caps.max_buckets);
+    r.exact = exact_p(t, ordering::pearson, opt.caps.auto_exact_work, opt.caps.auto_max_buckets, 1e-9, exact_threads());
     if (r.exact.complete) {
         r.used = route::exact;
         r.p = r.exact.p;

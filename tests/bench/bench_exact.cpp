@@ -90,7 +90,9 @@ void as_user(const counts& c, method how, const char* label) {
     try {
         const auto r = same_rates(c, opt);
         const char* routes[] = {"chi-square", "lr", "exact", "monte carlo", "all alike"};
-        outcome = "p = " + std::to_string(r.p) + " by " + routes[static_cast<int>(r.used)];
+        char p[32];
+        std::snprintf(p, sizeof p, "%.6g", r.p);
+        outcome = std::string("p = ") + p + " by " + routes[static_cast<int>(r.used)];
     } catch (const budget_exceeded& e) {
         outcome = std::string("Err:523: ") + e.what();
     }

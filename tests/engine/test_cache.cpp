@@ -51,13 +51,15 @@ TEST(Cache, SafeUnderConcurrentUse) {
 }
 
 TEST(ExactRefused, CarriesCertifiedBounds) {
-    // A 2 x 7 table with unequal groups and a small p-value (about 2.3e-12):
-    // exact needs about 11 million work units, the coarse grid about 6
-    // million; under a cap of 8 million exact is refused and bounds remain.
-    const std::vector<std::int64_t> n{37, 15, 35, 11, 39, 35, 32}, x{6, 7, 30, 3, 34, 18, 12};
+    // Issue 10's unequal 2 x 12 table (N = 500, rates 0.35 to 0.65): exact
+    // needs 7.8e7 work units, the coarse 1 % grid 8.8e6 (measured
+    // 2026-12-02); under a cap of 5e7 exact is refused and the coarse pass,
+    // with a quarter of the cap, leaves certified bounds.
+    const std::vector<std::int64_t> n{20, 25, 30, 35, 38, 40, 42, 45, 48, 52, 60, 65},
+        x{7, 9, 12, 15, 17, 19, 22, 24, 27, 31, 37, 42};
     options o;
     o.how = method::exact;
-    o.caps.exact_work = 8'000'000;
+    o.caps.exact_work = 50'000'000;
     try {
         same_rates(counts::from_values(x, n), o);
         FAIL() << "expected a refusal";
@@ -70,7 +72,7 @@ TEST(ExactRefused, CarriesCertifiedBounds) {
         const double p = same_rates(counts::from_values(x, n), full).p;
         EXPECT_LE(e.p_low, p * (1 + 1e-12));
         EXPECT_GE(e.p_high, p * (1 - 1e-12));
-        EXPECT_LT(e.p_high - e.p_low, 0.05 * p);  // tight: within 5%
+        EXPECT_LT(e.p_high - e.p_low, 0.15 * p);  // informative: within 15 % (0.106 to 0.117)
     }
     // A refusal is remembered: asked again through a cache, the same answer
     // comes back without the work.

@@ -4,6 +4,8 @@
 // Armitage 1955. Reference values: tests/reference/omnibus.csv (generate.py).
 #include <gtest/gtest.h>
 
+#include <bit>
+
 #include <array>
 #include <cmath>
 
@@ -159,6 +161,44 @@ TEST(OmnibusExact, CoarseBoundsBracketTheExactValue) {
     }
 }
 
+TEST(OmnibusExact, SameOutcomeBitForBitOnAnyThreadCount) {
+    // Issue 10: levels and the join are cut into chunks by what they read,
+    // never by the thread count, so p, its bounds, the work counted and
+    // every refusal are the same with 1, 2 or 3 threads. Two 2 x 12 tables
+    // large enough to be cut (unequal sizes at N = 240, rates 0.35 to 0.65;
+    // equal groups of 20, rates 0.10 to 0.83), both grids, and caps that stop
+    // the enumeration part way by work and by memory.
+    const std::vector<table> tables = {
+        table_of(make({4, 5, 6, 7, 8, 9, 10, 12, 13, 15, 18, 20}, {10, 12, 14, 17, 18, 19, 20, 22, 23, 25, 29, 31})),
+        table_of(make({2, 3, 4, 6, 7, 9, 10, 12, 13, 15, 16, 18}, std::vector<std::int64_t>(12, 20)))};
+    std::size_t stopped = 0, split = 0;
+    for (const auto& t : tables)
+        for (auto o : {ordering::pearson, ordering::lr, ordering::probability})
+            for (double width : {1e-9, 1e-2}) {
+                const auto full = exact_p(t, o, 1ull << 40, 1ull << 30, width, 1);
+                ASSERT_TRUE(full.complete);
+                split += full.work > 1'000'000;
+                const std::vector<std::pair<std::uint64_t, std::size_t>> caps = {
+                    {1ull << 40, 1ull << 30}, {full.work / 3, 1ull << 30}, {full.work * 9 / 10, 1ull << 30},
+                    {1ull << 40, 20'000}, {1ull << 40, 100'000}};
+                for (const auto& [work, buckets] : caps) {
+                    const auto one = exact_p(t, o, work, buckets, width, 1);
+                    stopped += !one.complete;
+                    for (unsigned threads : {2u, 3u}) {
+                        const auto many = exact_p(t, o, work, buckets, width, threads);
+                        EXPECT_EQ(one.complete, many.complete);
+                        EXPECT_EQ(one.stopped, many.stopped);
+                        EXPECT_EQ(one.work, many.work);
+                        EXPECT_EQ(std::bit_cast<std::uint64_t>(one.p), std::bit_cast<std::uint64_t>(many.p));
+                        EXPECT_EQ(std::bit_cast<std::uint64_t>(one.p_low), std::bit_cast<std::uint64_t>(many.p_low));
+                        EXPECT_EQ(std::bit_cast<std::uint64_t>(one.p_high), std::bit_cast<std::uint64_t>(many.p_high));
+                    }
+                }
+            }
+    EXPECT_GE(stopped, 12u);  // the caps did stop runs part way
+    EXPECT_GE(split, 6u);     // and the runs were large enough to be cut
+}
+
 TEST(OmnibusExact, GivesUpOnHugeTablesWhenAskedByName) {
     // Architecture: heavy work past the hard cap fails quickly with Err:523.
     options o;
@@ -286,9 +326,19 @@ TEST(OmnibusAuto, RouteChoiceOnBothSidesOfEachCap) {
         }
         return make(x, n);
     };
-    // Exact work 2.4e6 (m = 30) and 2.07e7 (m = 50) against the cap of 8e6.
-    EXPECT_EQ(same_rates(twelve(30), options{}).used, route::exact);
-    EXPECT_EQ(same_rates(twelve(50), options{}).used, route::monte_carlo);
+    // Exact work 3.3e7 (m = 70) and 5.3e7 (m = 80) against the cap of 4e7.
+    EXPECT_EQ(same_rates(twelve(70), options{}).used, route::exact);
+    EXPECT_EQ(same_rates(twelve(80), options{}).used, route::monte_carlo);
+    // The memory cap of "auto" (10^6 partial values): issue 10's unequal
+    // table at N = 240 passes it after 6.7e6 of its 4e7 units and goes to
+    // Monte Carlo.
+    const auto unequal = make({1, 2, 3, 5, 7, 8, 10, 12, 15, 17, 22, 26},
+                              {10, 12, 14, 17, 18, 19, 20, 22, 23, 25, 29, 31});
+    const auto stopped = exact_p(table_of(unequal), ordering::pearson, 40'000'000, 1'000'000);
+    EXPECT_FALSE(stopped.complete);
+    EXPECT_NE(stopped.stopped.find("partial results in memory"), std::string::npos) << stopped.stopped;
+    EXPECT_LT(stopped.work, 10'000'000u);
+    EXPECT_EQ(same_rates(unequal, options{}).used, route::monte_carlo);
     // Monte Carlo for "auto" needs 1,000 draws within 1.2e7 units: a group
     // of 5 beside four groups of 80,000 fits (about 1,500 draws), beside five
     // it does not, and the chi-square approximation is used with a caution.

@@ -45,14 +45,16 @@ inline constexpr double max_seed = 9007199254740992.0;
 // counted in deterministic units (see exact.cpp and monte_carlo.cpp), never in
 // seconds, so that the route chosen depends on the inputs only.
 struct limits {
-    // Calibrated on this project's 2-core machine (README, benchmarks): about
-    // 5-7 ns per exact work unit and 8 ns per Monte Carlo unit.
-    std::uint64_t exact_work = 300'000'000;     // about 2 s, for "exact" asked by name
-    std::uint64_t auto_exact_work = 8'000'000;   // about 60 ms
+    // Calibrated on this project's 2-core machine (README, bench_exact and
+    // bench_omnibus): about 1.3-2 ns per exact work unit on two threads
+    // (twice that on one) and 8 ns per Monte Carlo unit.
+    std::uint64_t exact_work = 3'000'000'000;  // about 5 s, for "exact" asked by name
+    std::uint64_t auto_exact_work = 40'000'000;  // about 60 ms
     std::int64_t max_draws = 10'000'000;
     std::uint64_t monte_carlo_work = 600'000'000;  // about 5 s, for draws asked by name (planned up front)
     std::uint64_t auto_monte_carlo_work = 12'000'000;  // about 100 ms (the two autos stay under 250 ms)
-    std::size_t max_buckets = 600'000;  // live partial values in one level of the exact DP (about 15 MB)
+    std::size_t max_buckets = 16'000'000;  // partial values of the exact network held at once (24 bytes each)
+    std::size_t auto_max_buckets = 1'000'000;  // the same for "auto" (24 MB)
     auto operator<=>(const limits&) const = default;
 };
 
@@ -114,8 +116,10 @@ struct exact_outcome {
 // Exact conditional p-value. `merge_width` is the relative width within which
 // partial statistic values are merged: 1e-9 gives the exact answer, a coarse
 // width gives certified bounds at lower cost.
+// The work is shared by up to `threads` threads; the outcome (p, bounds,
+// refusal) is the same bit for bit whatever their number.
 exact_outcome exact_p(const table& t, ordering o, std::uint64_t work_cap, std::size_t max_buckets,
-                      double merge_width = 1e-9);
+                      double merge_width = 1e-9, unsigned threads = 2);
 
 struct monte_carlo_outcome {
     std::int64_t draws = 0;
