@@ -230,9 +230,10 @@ inline void put(std::vector<bucket>& out, std::size_t first, const bucket& c, do
 // The k-way merge of the runs into one node, as rounds of two-way merges of
 // neighbouring runs (a balanced merge tree, Knuth 1998, TAOCP vol. 3,
 // 5.4.1): each bucket is moved once per round, log2(runs) rounds, with no
-// data-dependent branch in the inner loop (a heap of run heads spent most of
-// its time on mispredicted comparisons). Ties keep the order of the runs, so
-// the output depends on the inputs only.
+// data-dependent branch in the inner loop. A binary heap of run heads took
+// 1.8-2.1 s instead of 1.3-1.5 s on the level-heavy X^2 run of bench_exact's
+// wide N = 500 table, and the same time elsewhere (2026-12-02). Ties keep the
+// order of the runs, so the output depends on the inputs only.
 class merger {
 public:
     std::vector<run> runs;
@@ -345,6 +346,16 @@ public:
         pass front{pass_plan(t_, order), {}, false};
         std::reverse(order.begin(), order.end());
         pass back{pass_plan(t_, order), {}, true};
+        // Both passes' bounds are held throughout: two doubles per node and
+        // level, a third of a bucket each. Past half the memory cap the table
+        // is refused before they are built (10,000 groups of 2 would need 1.6 GB).
+        std::size_t nodes = 0;
+        for (std::size_t k = 0; k <= G; ++k) nodes += front.plan.width(k) + back.plan.width(k);
+        reach_held_ = nodes * 2 / 3;
+        if (reach_held_ > max_buckets_ / 2) {
+            out_.too_large = true;
+            return over_memory();
+        }
         front.bound = reach_of(front.plan, t_, terms_, {0.0}, {0.0});
         back.bound = reach_of(back.plan, t_, terms_, {0.0}, {0.0});
         while (front.k + back.k + 1 < G) {
@@ -534,7 +545,7 @@ private:
     bool step(pass& p, std::size_t other) {
         build_laws(p);
         if (over_cap()) return false;
-        const std::size_t held = other + p.cur.total() + (law_values_.size() + suffix_.size()) / 3;
+        const std::size_t held = other + p.cur.total() + (law_values_.size() + suffix_.size()) / 3 + reach_held_;
         if (held > max_buckets_) return over_memory();
         auto chunks = level_chunks(p);
         const std::uint64_t budget = work_cap_ - out_.work;
@@ -714,6 +725,7 @@ private:
     std::vector<detail::term_row> terms_;
     double thr_ = 0, width_ = 0;
     double p_sure_ = 0.0;
+    std::size_t reach_held_ = 0;  // the passes' bounds, in buckets' worth of memory
     // The level being built: the next group's law per source node, and the
     // suffix sums of the source lists.
     std::vector<law> laws_;

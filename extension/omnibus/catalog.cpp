@@ -18,7 +18,8 @@ using shared::successes;
 
 constexpr argument method{
     "method",
-    "Leave empty or \"auto\" (recommended): the counts decide. Otherwise \"exact\" (exact test, for small counts), "
+    "Leave empty or \"auto\" (recommended): the counts decide. Otherwise \"exact\" (exact test, for small counts; "
+    "Err:523 when it would need more than about 5 s), "
     "\"pearson\" (chi-square approximation) or \"montecarlo\" (random tables with the same totals). Specialist "
     "variants: \"lr\" (likelihood-ratio chi-square), \"exact-lr\" and \"exact-prob\" (exact test ordering tables "
     "by G² or by their probability).",

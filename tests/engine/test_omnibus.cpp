@@ -204,6 +204,16 @@ TEST(OmnibusExact, GivesUpOnHugeTablesWhenAskedByName) {
     options o;
     o.how = method::exact;
     EXPECT_THROW(same_rates(make({3, 40000, 41000, 39000}, {5, 80000, 80000, 80000}), o), budget_exceeded);
+    // The refusal path stays quick (issue 10): 10,000 groups of 2 attempts
+    // would hold 1.6 GB of bounds alone, and are refused before anything is
+    // built or enumerated, with no coarse pass after (too_large).
+    std::vector<std::int64_t> x(10000), n(10000, 2);
+    for (std::size_t k = 0; k < x.size(); ++k) x[k] = static_cast<std::int64_t>(k % 3);
+    const limits caps;
+    const auto r = exact_p(table_of(make(x, n)), ordering::pearson, caps.exact_work, caps.max_buckets);
+    EXPECT_FALSE(r.complete);
+    EXPECT_TRUE(r.too_large);
+    EXPECT_NE(r.stopped.find("in memory at once"), std::string::npos) << r.stopped;
 }
 
 TEST(OmnibusMonteCarlo, WithinFourStandardErrorsOfExact) {
