@@ -22,6 +22,7 @@
 #include <string>
 #include <vector>
 
+#include "../engine/golden_cases.hpp"
 #include "tallyrates/errors.hpp"
 #include "tallyrates/omnibus.hpp"
 
@@ -48,19 +49,13 @@ bench_table equal(const char* name, std::int64_t N, double low, double step) {
     return b;
 }
 
-// 12 groups of 20, 25, ..., 65 attempts (N = 500), or those sizes scaled to
-// N, with rates spread evenly from low to high (issue 10).
+// Issue 10's unequal tables (tests/engine/golden_cases.hpp).
 bench_table unequal(const char* name, std::int64_t N, double low, double high) {
-    const std::vector<std::int64_t> sizes = {20, 25, 30, 35, 38, 40, 42, 45, 48, 52, 60, 65};
-    bench_table b{name, "12 groups of 20..65 scaled to N = " + std::to_string(N) + ", rates " +
-                            std::to_string(low).substr(0, 4) + " to " + std::to_string(high).substr(0, 4),
-                  {}, {}};
-    for (std::size_t g = 0; g < sizes.size(); ++g) {
-        const auto n = static_cast<std::int64_t>(std::lround(static_cast<double>(sizes[g] * N) / 500.0));
-        b.n.push_back(n);
-        b.x.push_back(std::lround(static_cast<double>(n) * (low + (high - low) * static_cast<double>(g) / 11.0)));
-    }
-    return b;
+    const auto u = testing::unequal_twelve(name, N, low, high);
+    return {name,
+            "12 groups of 20..65 scaled to N = " + std::to_string(N) + ", rates " + std::to_string(low).substr(0, 4) +
+                " to " + std::to_string(high).substr(0, 4),
+            u.x, u.n};
 }
 
 std::vector<bench_table> tables() {

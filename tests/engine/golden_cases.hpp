@@ -3,7 +3,10 @@
 // means equal bits.
 #pragma once
 
+#include <cmath>
 #include <cstdio>
+#include <cstdlib>
+#include <fstream>
 #include <string>
 #include <vector>
 
@@ -53,6 +56,37 @@ inline std::vector<golden_table> golden_tables() {
         t.push_back(g);
     }
     return t;
+}
+
+// 12 groups of 20, 25, 30, 35, 38, 40, 42, 45, 48, 52, 60 and 65 attempts
+// (N = 500), or those sizes scaled to N, with rates spread evenly from low
+// to high: issue 10's unequal tables (also in bench_exact).
+inline golden_table unequal_twelve(const char* name, std::int64_t N, double low, double high) {
+    const std::vector<std::int64_t> sizes = {20, 25, 30, 35, 38, 40, 42, 45, 48, 52, 60, 65};
+    golden_table t{name, {}, {}};
+    for (std::size_t g = 0; g < sizes.size(); ++g) {
+        const auto n = static_cast<std::int64_t>(std::lround(static_cast<double>(sizes[g] * N) / 500.0));
+        t.n.push_back(n);
+        t.x.push_back(std::lround(static_cast<double>(n) * (low + (high - low) * static_cast<double>(g) / 11.0)));
+    }
+    return t;
+}
+
+// A golden file is rewritten only on purpose: with TALLYRATES_GOLDEN_WRITE
+// set, `lines` go to that file and the caller skips its comparison.
+inline bool write_if_asked(const std::vector<std::string>& lines) {
+    const char* out = std::getenv("TALLYRATES_GOLDEN_WRITE");
+    if (out == nullptr) return false;
+    std::ofstream f(out);
+    for (const auto& l : lines) f << l << '\n';
+    return true;
+}
+
+inline std::vector<std::string> read_lines(const char* path) {
+    std::ifstream in(path);
+    std::vector<std::string> lines;
+    for (std::string line; std::getline(in, line);) lines.push_back(line);
+    return lines;
 }
 
 inline std::string hex(double v) {

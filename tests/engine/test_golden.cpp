@@ -55,14 +55,8 @@ bool exact_route_close(const std::string& a, const std::string& b) {
 
 TEST(Golden, OmnibusResultsBitIdentical) {
     const auto now = tallyrates::testing::golden_lines();
-    if (const char* out = std::getenv("TALLYRATES_GOLDEN_WRITE")) {
-        std::ofstream f(out);
-        for (const auto& l : now) f << l << '\n';
-        GTEST_SKIP() << "wrote " << out;
-    }
-    std::ifstream in(TALLYRATES_GOLDEN_FILE);
-    std::vector<std::string> before;
-    for (std::string line; std::getline(in, line);) before.push_back(line);
+    if (tallyrates::testing::write_if_asked(now)) GTEST_SKIP() << "wrote the golden file";
+    const auto before = tallyrates::testing::read_lines(TALLYRATES_GOLDEN_FILE);
     ASSERT_EQ(before.size(), now.size()) << "line count differs from " TALLYRATES_GOLDEN_FILE;
     for (std::size_t k = 0; k < now.size(); ++k) {
         if (before[k] == now[k]) continue;

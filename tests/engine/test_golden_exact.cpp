@@ -36,19 +36,6 @@ struct exact_case {
     std::vector<std::int64_t> x, n;
 };
 
-// 12 groups of 20 ... 65 attempts (N = 500), or those sizes scaled to N,
-// with rates spread evenly from `low` to `high` (issue 10's unequal tables).
-exact_case unequal(const char* name, std::int64_t N, double low, double high) {
-    const std::vector<std::int64_t> sizes = {20, 25, 30, 35, 38, 40, 42, 45, 48, 52, 60, 65};
-    exact_case c{name, {}, {}};
-    for (std::size_t g = 0; g < sizes.size(); ++g) {
-        const auto n = static_cast<std::int64_t>(std::lround(static_cast<double>(sizes[g] * N) / 500.0));
-        c.n.push_back(n);
-        c.x.push_back(std::lround(static_cast<double>(n) * (low + (high - low) * static_cast<double>(g) / 11.0)));
-    }
-    return c;
-}
-
 std::vector<exact_case> cases() {
     std::vector<exact_case> out;
     std::set<std::pair<std::vector<std::int64_t>, std::vector<std::int64_t>>> seen;
@@ -58,16 +45,11 @@ std::vector<exact_case> cases() {
     for (const auto& g : tallyrates::testing::golden_tables()) add(g.name, g.x, g.n);
     // Every distinct table of the reference file with at least two groups.
     for (const auto& r : tallyrates::testing::reference_rows("")) add(r.name, r.successes, r.attempts);
-    out.push_back(unequal("unequal_120_mid", 120, 0.35, 0.65));
-    out.push_back(unequal("unequal_150_far", 150, 0.10, 0.83));
-    out.push_back(unequal("unequal_240_mid", 240, 0.35, 0.65));
+    for (const auto& u : {tallyrates::testing::unequal_twelve("unequal_120_mid", 120, 0.35, 0.65),
+                          tallyrates::testing::unequal_twelve("unequal_150_far", 150, 0.10, 0.83),
+                          tallyrates::testing::unequal_twelve("unequal_240_mid", 240, 0.35, 0.65)})
+        add(u.name, u.x, u.n);
     return out;
-}
-
-std::string hex(double v) {
-    char buf[64];
-    std::snprintf(buf, sizeof buf, "%a", v);
-    return buf;
 }
 
 // One line per case and ordering: name, ordering, then p p_low p_high, or
@@ -86,6 +68,7 @@ std::vector<std::string> lines_now() {
                                std::pair{ordering::probability, "prob"}}) {
             const auto e = omnibus::exact_p(t, o, 1ull << 26, 1u << 22);
             std::string line = c.name + " " + word;
+            using tallyrates::testing::hex;
             line += e.complete ? " " + hex(e.p) + " " + hex(e.p_low) + " " + hex(e.p_high) : " refused";
             out.push_back(line);
         }
@@ -99,14 +82,8 @@ double from_hex(const std::string& s) { return std::strtod(s.c_str(), nullptr); 
 
 TEST(GoldenExact, PValuesAsBeforeTheKWayMerge) {
     const auto now = lines_now();
-    if (const char* out = std::getenv("TALLYRATES_GOLDEN_WRITE")) {
-        std::ofstream f(out);
-        for (const auto& l : now) f << l << '\n';
-        GTEST_SKIP() << "wrote " << out;
-    }
-    std::ifstream in(TALLYRATES_GOLDEN_EXACT_FILE);
-    std::vector<std::string> before;
-    for (std::string line; std::getline(in, line);) before.push_back(line);
+    if (tallyrates::testing::write_if_asked(now)) GTEST_SKIP() << "wrote the golden file";
+    const auto before = tallyrates::testing::read_lines(TALLYRATES_GOLDEN_EXACT_FILE);
     ASSERT_EQ(before.size(), now.size()) << "line count differs from " TALLYRATES_GOLDEN_EXACT_FILE;
     std::size_t compared = 0;
     for (std::size_t k = 0; k < now.size(); ++k) {
