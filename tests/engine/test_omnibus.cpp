@@ -10,6 +10,7 @@
 #include <cmath>
 
 #include "detail/hypergeometric.hpp"
+#include "golden_cases.hpp"
 #include "reference.hpp"
 #include "tallyrates/errors.hpp"
 #include "tallyrates/omnibus.hpp"
@@ -165,11 +166,13 @@ TEST(OmnibusExact, SameOutcomeBitForBitOnAnyThreadCount) {
     // Issue 10: levels and the join are cut into chunks by what they read,
     // never by the thread count, so p, its bounds, the work counted and
     // every refusal are the same with 1, 2 or 3 threads. Two 2 x 12 tables
-    // large enough to be cut (unequal sizes at N = 240, rates 0.35 to 0.65;
-    // equal groups of 20, rates 0.10 to 0.83), both grids, and caps that stop
-    // the enumeration part way by work and by memory.
+    // (issue 10's unequal sizes at N = 300, rates 0.35 to 0.65, whose later
+    // levels and join are cut in two; equal groups of 20, rates 0.10 to
+    // 0.90), both grids, and caps that stop the enumeration part way by work
+    // and by memory.
+    const auto unequal = tallyrates::testing::unequal_twelve("unequal_300", 300, 0.35, 0.65);
     const std::vector<table> tables = {
-        table_of(make({4, 5, 6, 7, 8, 9, 10, 12, 13, 15, 18, 20}, {10, 12, 14, 17, 18, 19, 20, 22, 23, 25, 29, 31})),
+        table_of(make(unequal.x, unequal.n)),
         table_of(make({2, 3, 4, 6, 7, 9, 10, 12, 13, 15, 16, 18}, std::vector<std::int64_t>(12, 20)))};
     std::size_t stopped = 0, split = 0;
     for (const auto& t : tables)
@@ -196,7 +199,23 @@ TEST(OmnibusExact, SameOutcomeBitForBitOnAnyThreadCount) {
                 }
             }
     EXPECT_GE(stopped, 12u);  // the caps did stop runs part way
-    EXPECT_GE(split, 6u);     // and the runs were large enough to be cut
+    EXPECT_GE(split, 6u);
+    // A table whose later levels are large enough to be cut in two: X² only,
+    // stopped part way by work and by memory (a chunking that followed the
+    // thread count fails here).
+    const auto large = tallyrates::testing::unequal_twelve("unequal_420", 420, 0.35, 0.65);
+    const table t = table_of(make(large.x, large.n));
+    const auto full = exact_p(t, ordering::pearson, 1ull << 40, 1ull << 30, 1e-9, 2);
+    for (const auto& [work, buckets] : std::vector<std::pair<std::uint64_t, std::size_t>>{
+             {1ull << 40, 1ull << 30}, {full.work / 2, 1ull << 30}, {full.work - 1000, 1ull << 30},
+             {1ull << 40, 400'000}, {1ull << 40, 1'000'000}}) {
+        const auto one = exact_p(t, ordering::pearson, work, buckets, 1e-9, 1);
+        const auto two = exact_p(t, ordering::pearson, work, buckets, 1e-9, 2);
+        EXPECT_EQ(one.complete, two.complete);
+        EXPECT_EQ(one.stopped, two.stopped);
+        EXPECT_EQ(one.work, two.work);
+        EXPECT_EQ(std::bit_cast<std::uint64_t>(one.p), std::bit_cast<std::uint64_t>(two.p));
+    }
 }
 
 TEST(OmnibusExact, GivesUpOnHugeTablesWhenAskedByName) {
