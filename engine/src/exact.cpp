@@ -369,8 +369,6 @@ public:
             out_.too_large = true;
             return over_memory();
         }
-        front.bound = reach_of(front.plan, t_, terms_, {0.0}, {0.0});
-        back.bound = reach_of(back.plan, t_, terms_, {0.0}, {0.0});
         while (front.k + back.k + 1 < G) {
             // The side whose next level reads fewer buckets takes the next group.
             pass& p = next_cost(front) <= next_cost(back) ? front : back;
@@ -492,6 +490,8 @@ private:
             // chunk stops once past `room`, so with one node's worth more the
             // buckets never move once written (the level points at them).
             c.out.reserve(static_cast<std::size_t>(std::min(c.bound, static_cast<double>(room) + c.largest)));
+            c.count.reserve(c.to - c.from);
+            c.sure.reserve(c.to - c.from);
             for (std::size_t d = c.from; d < c.to; ++d) {
                 const std::size_t before = c.out.size();
                 c.sure.push_back(build_node(p, d, c.out, m, c.work));
@@ -555,6 +555,10 @@ private:
     // Takes the pass's next group. `other` is the size of the other pass's
     // level, held in memory meanwhile.
     bool step(pass& p, std::size_t other) {
+        // A pass's bounds are built when it takes its first group: near one
+        // shared rate the front pass often prunes everything before the back
+        // pass starts (its bounds are charged in the set-up work all the same).
+        if (p.k == 0) p.bound = reach_of(p.plan, t_, terms_, {0.0}, {0.0});
         build_laws(p);
         if (over_cap()) return false;
         const std::size_t held = other + p.cur.total() + (law_values_.size() + suffix_.size()) / 3 + reach_held_;
@@ -576,6 +580,11 @@ private:
                 build_chunk(p, chunks[c], budget, static_cast<std::size_t>(room), mergers_[c]);
         });
         level next;
+        const std::size_t width = p.plan.width(p.k + 1);
+        next.at.reserve(width);
+        next.start.reserve(width + 1);
+        next.sure.reserve(width);
+        next.parts.reserve(chunks.size());
         for (auto& c : chunks) {
             out_.work += c.work;
             if (c.failed == 1) {
@@ -612,11 +621,11 @@ private:
         double v, hx, q;     // the middle group's term, its probability, P(back total)
         std::size_t a0, a1;  // the band of front buckets to walk (see join_node)
     };
-    std::array<double, 3> join_node(const pass& F, const pass& B, std::size_t i,
-                                    const std::vector<middle>& at) const {
+    std::array<double, 3> join_node(const pass& F, const pass& B, std::size_t i, const std::vector<middle>& at,
+                                    std::vector<double>& front_suffix) const {
         const bucket* fl = F.cur.first(i);
         const std::size_t nf = F.cur.size(i);
-        std::vector<double> front_suffix(nf + 1, 0.0);
+        front_suffix.assign(nf + 1, 0.0);
         for (std::size_t a = nf; a-- > 0;) front_suffix[a] = front_suffix[a + 1] + fl[a].w;
         double sure = 0.0, open = 0.0, at_mid = 0.0;
         for (const middle& m : at) {
@@ -657,6 +666,7 @@ private:
         std::vector<middle> out;
         cost += static_cast<double>(F.cur.size(i));  // its suffix sums
         const auto sup = detail::hypergeometric_pmf(t_.attempts - F.plan.used[f], t_.successes - s, t_.n[g], pmf_);
+        out.reserve(pmf_.size());
         for (std::int64_t x = sup.first; x <= sup.last; ++x) {
             const double hx = pmf_[static_cast<std::size_t>(x - sup.first)];
             const std::int64_t tt = t_.successes - s - x;
@@ -714,7 +724,8 @@ private:
         std::vector<std::array<double, 3>> sums(fronts.size());
         const auto cuts = cut(cost, total > split_above ? join_chunks : 1);
         on_threads(cuts.size() - 1, [&](std::size_t c) {
-            for (std::size_t k = cuts[c]; k < cuts[c + 1]; ++k) sums[k] = join_node(F, B, fronts[k], at[k]);
+            std::vector<double> front_suffix;  // one buffer per chunk
+            for (std::size_t k = cuts[c]; k < cuts[c + 1]; ++k) sums[k] = join_node(F, B, fronts[k], at[k], front_suffix);
         });
         double p_open = 0.0, p_mid = 0.0;
         for (const auto& s : sums) {
