@@ -552,6 +552,36 @@ private:
         return chunks;
     }
 
+    // The pass's next level from its chunks, in node order (the front pass's
+    // surely extreme mass goes to p_sure_); false when a chunk stopped, the
+    // first in order deciding why.
+    bool assemble(const pass& p, std::vector<chunk>& chunks, level& next) {
+        const std::size_t width = p.plan.width(p.k + 1);
+        next.at.reserve(width);
+        next.start.reserve(width + 1);
+        next.sure.reserve(width);
+        next.parts.reserve(chunks.size());
+        for (auto& c : chunks) {
+            out_.work += c.work;
+            if (c.failed == 1) {
+                over_cap();  // c.work > budget: the cap is passed, and says so
+                return false;
+            }
+            if (c.failed == 2) return over_memory();
+            const bucket* at = c.out.data();
+            for (std::size_t d = 0; d < c.count.size(); ++d) {
+                next.at.push_back(at);
+                at += c.count[d];
+                next.start.push_back(next.start.back() + c.count[d]);
+                // The front pass's weights are whole chains: their sure mass is final.
+                next.sure.push_back(p.back ? c.sure[d] : 0.0);
+                if (!p.back) p_sure_ += c.sure[d];
+            }
+            next.parts.push_back(std::move(c.out));  // moving keeps the buckets where they are
+        }
+        return true;
+    }
+
     // Takes the pass's next group. `other` is the size of the other pass's
     // level, held in memory meanwhile.
     bool step(pass& p, std::size_t other) {
@@ -580,29 +610,7 @@ private:
                 build_chunk(p, chunks[c], budget, static_cast<std::size_t>(room), mergers_[c]);
         });
         level next;
-        const std::size_t width = p.plan.width(p.k + 1);
-        next.at.reserve(width);
-        next.start.reserve(width + 1);
-        next.sure.reserve(width);
-        next.parts.reserve(chunks.size());
-        for (auto& c : chunks) {
-            out_.work += c.work;
-            if (c.failed == 1) {
-                over_cap();  // c.work > budget: the cap is passed, and says so
-                return false;
-            }
-            if (c.failed == 2) return over_memory();
-            const bucket* at = c.out.data();
-            for (std::size_t d = 0; d < c.count.size(); ++d) {
-                next.at.push_back(at);
-                at += c.count[d];
-                next.start.push_back(next.start.back() + c.count[d]);
-                // The front pass's weights are whole chains: their sure mass is final.
-                next.sure.push_back(p.back ? c.sure[d] : 0.0);
-                if (!p.back) p_sure_ += c.sure[d];
-            }
-            next.parts.push_back(std::move(c.out));  // moving keeps the buckets where they are
-        }
+        if (!assemble(p, chunks, next)) return false;
         if (over_cap()) return false;
         if (held + next.total() > max_buckets_) return over_memory();
         p.cur = std::move(next);

@@ -31,6 +31,16 @@ struct hostile {
     omnibus::options opt;
 };
 
+// `count` groups of 2 attempts with 0, 1, 2, 0, ... successes.
+hostile pairs(const char* name, const char* what, int count) {
+    hostile h{name, what, {}, {}, {}};
+    for (int g = 0; g < count; ++g) {
+        h.n.push_back(2);
+        h.x.push_back(g % 3);
+    }
+    return h;
+}
+
 std::vector<hostile> cases() {
     std::vector<hostile> out;
     {
@@ -43,14 +53,7 @@ std::vector<hostile> cases() {
     }
     out.push_back({"small_beside_two_giants", "auto: 4 of 5 beside two groups of 24 million",
                    {4, 21'600'000, 21'620'000}, {5, 24'000'000, 24'000'000}, {}});
-    {
-        hostile h{"million_pairs", "auto: 1,048,576 groups of 2 attempts", {}, {}, {}};
-        for (int g = 0; g < 1'048'576; ++g) {
-            h.n.push_back(2);
-            h.x.push_back(g % 3);
-        }
-        out.push_back(h);
-    }
+    out.push_back(pairs("million_pairs", "auto: 1,048,576 groups of 2 attempts", 1'048'576));
     {
         hostile h{"mc_15x1000", "montecarlo by name: 10^7 draws over 15 groups of 1000", {}, {}, {}};
         for (int g = 0; g < 15; ++g) {
@@ -80,15 +83,8 @@ std::vector<hostile> cases() {
         h.opt.how = omnibus::method::exact;
         out.push_back(h);
     }
-    {
-        hostile h{"exact_10000_pairs", "exact by name: 10,000 groups of 2 attempts", {}, {}, {}};
-        for (int g = 0; g < 10'000; ++g) {
-            h.n.push_back(2);
-            h.x.push_back(g % 3);
-        }
-        h.opt.how = omnibus::method::exact;
-        out.push_back(h);
-    }
+    out.push_back(pairs("exact_10000_pairs", "exact by name: 10,000 groups of 2 attempts", 10'000));
+    out.back().opt.how = omnibus::method::exact;
     for (unsigned threads : {1u, 2u, 4u}) {
         hostile h{"mc_3x12000_threads", "montecarlo by name: 131,072 draws over 3 groups of 12,000",
                   {7000, 7100, 7200}, {12'000, 12'000, 12'000}, {}};
