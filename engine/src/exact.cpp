@@ -32,9 +32,11 @@
 // front, the other from the back (the same pass over the groups in reverse
 // order), each pruned by the exact minimum and maximum of what all the other
 // groups can add per success count, so neither pass needs the other's
-// lists. The pass whose next level reads fewer buckets (its list sizes now,
-// times the values its next group can take) takes that group, so the halves
-// end balanced by measured sizes rather than by group counts. The one group
+// lists. The front pass starts alone and the back pass starts only once the
+// front pass's lists have grown enough to pay for it (near one shared rate
+// they never do); then the pass whose next level reads fewer buckets (its
+// list sizes now, times the values its next group can take) takes that
+// group, so the halves end balanced by measured sizes. The one group
 // left between them is summed over in the join, never stored:
 // P(table) = P(front part) P(x | front part) P(back part) / P(back total),
 // walking the sorted front and back lists with moving pointers over the band
@@ -143,23 +145,29 @@ struct reach {
 };
 
 // One level of `reach`: mn[s] = min over x of term(x) + next_mn[s + x]
-// (likewise max).
+// (likewise max). The loop runs over s inside x: every s is its own running
+// minimum, so there is no chain of dependent min/max from one x to the next
+// (the other way round took 10 % of a near-table call at N = 150).
 void reach_level(const detail::term_row& term, std::int64_t n_g, std::int64_t lo, std::int64_t hi,
                  std::int64_t next_lo, std::int64_t next_hi, const std::vector<double>& next_mn,
                  const std::vector<double>& next_mx, std::vector<double>& mn, std::vector<double>& mx) {
     mn.assign(static_cast<std::size_t>(hi - lo + 1), inf);
     mx.assign(mn.size(), -inf);
-    for (std::int64_t s = lo; s <= hi; ++s) {
-        const std::int64_t xa = std::max<std::int64_t>(0, next_lo - s);
-        const std::int64_t xb = std::min<std::int64_t>(n_g, next_hi - s);
-        double a = inf, b = -inf;
-        for (std::int64_t x = xa; x <= xb; ++x) {
-            const std::size_t j = static_cast<std::size_t>(s + x - next_lo);
-            a = std::min(a, term[x] + next_mn[j]);
-            b = std::max(b, term[x] + next_mx[j]);
+    const std::int64_t xa = std::max<std::int64_t>(0, next_lo - hi), xb = std::min(n_g, next_hi - lo);
+    for (std::int64_t x = xa; x <= xb; ++x) {
+        // s + x must be a node of the next level.
+        const std::int64_t sa = std::max(lo, next_lo - x), sb = std::min(hi, next_hi - x);
+        if (sa > sb) continue;
+        const double v = term[x];
+        const std::size_t count = static_cast<std::size_t>(sb - sa + 1);
+        double* a = mn.data() + (sa - lo);
+        double* b = mx.data() + (sa - lo);
+        const double* na = next_mn.data() + (sa + x - next_lo);
+        const double* nb = next_mx.data() + (sa + x - next_lo);
+        for (std::size_t i = 0; i < count; ++i) {
+            a[i] = std::min(a[i], v + na[i]);
+            b[i] = std::max(b[i], v + nb[i]);
         }
-        mn[static_cast<std::size_t>(s - lo)] = a;
-        mx[static_cast<std::size_t>(s - lo)] = b;
     }
 }
 
@@ -177,6 +185,12 @@ reach reach_of(const pass_plan& plan, const table& t, const std::vector<detail::
     return r;
 }
 
+// The values group g's successes can take at one node: at most
+// min(n_g, S, F) + 1. A level costs its nodes (or buckets) times this.
+double values_of(const table& t, std::size_t g) {
+    return static_cast<double>(std::min({t.n[g], t.successes, t.attempts - t.successes}) + 1);
+}
+
 // Work before the enumeration: the term tables (lgamma calls for the
 // probability ordering cost about 16 units a value) and the reach of both
 // passes (every (node, x) pair once each).
@@ -186,9 +200,7 @@ double setup_work(const table& t, ordering o) {
     for (std::size_t k = 0; k < t.groups(); ++k) {
         const double lo = std::max<double>(0, S - (N - placed));
         const double hi = std::min<double>(S, placed);
-        // x ranges over at most min(n_k, S, N - S) + 1 values at each node.
-        const double xs = std::min({static_cast<double>(t.n[k]), S, N - S});
-        work += 2 * (hi - lo + 1) * (xs + 1) + (xs + 1) * (o == ordering::probability ? 16 : 2);
+        work += 2 * (hi - lo + 1) * values_of(t, k) + values_of(t, k) * (o == ordering::probability ? 16 : 2);
         placed += static_cast<double>(t.n[k]);
     }
     return work;
@@ -369,10 +381,19 @@ public:
             out_.too_large = true;
             return over_memory();
         }
+        // For the start of the back pass (takes_next): the values the front
+        // pass's groups take from each level to its last, and the cost of the
+        // back pass's bounds; computed once (a million groups are possible).
+        ahead_.assign(G + 1, 0.0);
+        for (std::size_t k = G; k-- > 1;) ahead_[k - 1] = ahead_[k] + values_of(t_, front.plan.groups[k - 1]);
+        back_bounds_ = 0;
+        for (std::size_t k = 0; k < G; ++k)
+            back_bounds_ += static_cast<double>(back.plan.width(k)) * values_of(t_, back.plan.groups[k]);
+        double front_spent = 0;  // the front pass's level costs so far
         while (front.k + back.k + 1 < G) {
-            // The side whose next level reads fewer buckets takes the next group.
-            pass& p = next_cost(front) <= next_cost(back) ? front : back;
+            pass& p = takes_next(front, back, front_spent);
             pass& other = &p == &front ? back : front;
+            if (&p == &front) front_spent += level_cost(front);
             if (!step(p, other.cur.total())) return false;
         }
         return join(front, back);
@@ -418,11 +439,29 @@ private:
     }
 
     // Buckets the pass's next level reads, times the values its group takes.
-    double next_cost(const pass& p) const {
+    double level_cost(const pass& p) const {
         if (p.k == p.plan.levels()) return inf;
-        const double S = static_cast<double>(t_.successes), F = static_cast<double>(t_.attempts - t_.successes);
-        const double xs = std::min({static_cast<double>(t_.n[p.plan.groups[p.k]]), S, F});
-        return static_cast<double>(p.cur.total()) * (xs + 1);
+        return static_cast<double>(p.cur.total()) * values_of(t_, p.plan.groups[p.k]);
+    }
+
+    // Which pass takes the next group. The front pass starts alone: near one
+    // shared rate its lists stay small (its bounds tighten as fewer groups
+    // remain), and a back pass costs more to start than it saves. The back
+    // pass starts once the front pass's remaining levels, at its present list
+    // size, would cost more than 1.5 times the back pass's bounds (building
+    // them, and the laws of its nodes that carry only surely extreme mass)
+    // plus twice the front levels so far (the back pass's first levels mirror
+    // them, at about twice the cost, as its nodes also carry surely extreme
+    // mass). Both factors measured on 2 x 12 tables near one shared rate,
+    // N = 120 to 420 (2026-12-02): N = 150, 31 us alone against 48 us with
+    // both passes; N = 300 (G^2), 306 us with both against 479 us alone.
+    // Once both have started, the one whose next level reads fewer buckets
+    // takes the group, so the halves end balanced by measured sizes.
+    pass& takes_next(pass& front, pass& back, double front_spent) const {
+        if (back.k > 0) return level_cost(front) <= level_cost(back) ? front : back;
+        if (front.k == 0) return front;
+        const double alone = static_cast<double>(front.cur.total()) * ahead_[front.k];
+        return alone > 1.5 * back_bounds_ + 2 * front_spent ? back : front;
     }
 
     // The next group's law at every live node of the pass's level, and the
@@ -431,6 +470,7 @@ private:
         const std::size_t k = p.k, g = p.plan.groups[k];
         const level& cur = p.cur;
         laws_.assign(cur.nodes(), law{});
+        live_.clear();
         law_values_.clear();
         suffix_.resize(cur.total() + cur.nodes());
         for (std::size_t i = 0; i < cur.nodes(); ++i) {
@@ -443,6 +483,7 @@ private:
             const auto sup =
                 detail::hypergeometric_pmf(t_.attempts - p.plan.used[k], t_.successes - s, t_.n[g], pmf_);
             laws_[i] = {law_values_.size(), sup.first, sup.last};
+            live_.push_back(i);
             law_values_.insert(law_values_.end(), pmf_.begin(), pmf_.end());
             out_.work += pmf_.size() + n;
         }
@@ -460,8 +501,13 @@ private:
         const double mn = p.bound.mn[k + 1][d], mx = p.bound.mx[k + 1][d];
         double sure = 0.0;
         m.runs.clear();
-        for (std::int64_t s = s_from; s <= s_to; ++s) {
-            const auto i = static_cast<std::size_t>(s - p.plan.lo[k]);
+        // Near one shared rate most source nodes are pruned empty: only the
+        // live ones are visited (scanning them all took a fifth of a call).
+        const auto i_from = static_cast<std::size_t>(s_from - p.plan.lo[k]);
+        const auto i_to = static_cast<std::size_t>(s_to - p.plan.lo[k]);
+        for (auto it = std::lower_bound(live_.begin(), live_.end(), i_from); it != live_.end() && *it <= i_to; ++it) {
+            const std::size_t i = *it;
+            const std::int64_t s = p.plan.lo[k] + static_cast<std::int64_t>(i);
             const law& l = laws_[i];
             const std::int64_t x = j - s;
             if (x < l.first || x > l.last) continue;
@@ -757,10 +803,13 @@ private:
     std::vector<detail::term_row> terms_;
     double thr_ = 0, width_ = 0;
     double p_sure_ = 0.0;
+    std::vector<double> ahead_;  // values of the front pass's groups from level k to G - 1 (see run)
+    double back_bounds_ = 0;      // what building the back pass's bounds costs
     std::size_t reach_held_ = 0;  // the passes' bounds, in buckets' worth of memory
     // The level being built: the next group's law per source node, and the
     // suffix sums of the source lists.
     std::vector<law> laws_;
+    std::vector<std::size_t> live_;  // the source nodes with a law, in order
     std::vector<double> law_values_, suffix_, pmf_;
     std::vector<double> back_suffix_;  // suffix sums of the back level's lists, for the join
     std::vector<merger> mergers_;      // one per chunk of a level, kept across levels
