@@ -46,6 +46,16 @@ BENCHMARK(BM_exact_pearson)->Arg(60)->Arg(150)->Arg(240)->Arg(500)->Unit(benchma
 BENCHMARK(BM_exact_lr)->Arg(60)->Arg(150)->Arg(240)->Arg(500)->Unit(benchmark::kMillisecond);
 BENCHMARK(BM_exact_prob)->Arg(60)->Arg(150)->Arg(240)->Arg(500)->Unit(benchmark::kMillisecond);
 
+// The same near table between and beyond those sizes, each ordering (0 X^2,
+// 1 G^2, 2 probability): issue 10 asks for no slowdown at any N up to 1,000,
+// and the network changes its plan with N (when its back pass starts).
+void BM_exact_near_sweep(benchmark::State& s) {
+    run_exact(s, twelve_groups(s.range(0)), static_cast<ordering>(s.range(1)));
+}
+BENCHMARK(BM_exact_near_sweep)
+    ->ArgsProduct({{90, 120, 180, 210, 270, 300, 360, 420, 600, 720, 840, 960}, {0, 1, 2}})
+    ->Unit(benchmark::kMillisecond);
+
 // The same shape far from "one shared rate": rates 0.10, 0.17, ..., 0.83, so
 // the p-value is tiny and pruning has little to cut.
 void exact_far(benchmark::State& state, ordering o) {

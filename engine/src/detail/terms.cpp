@@ -23,6 +23,17 @@ double log_choose(std::int64_t n, std::int64_t k) {
 }
 
 namespace {
+// log C(n, k) from lgamma in double precision, for the term tables only.
+// Boost promotes to long double by default, which made the tables of the
+// probability ordering 90 % of an exact call on small tables (2 x 12,
+// N = 60: 60 of 67 us); the terms only order tables (1e-7 tie tolerance),
+// while the probability a report shows keeps log_choose.
+double log_choose_fast(std::int64_t n, std::int64_t k) {
+    using double_policy = boost::math::policies::policy<boost::math::policies::promote_double<false>>;
+    const auto lg = [](double x) { return boost::math::lgamma(x, double_policy()); };
+    return lg(static_cast<double>(n) + 1) - lg(static_cast<double>(k) + 1) - lg(static_cast<double>(n - k) + 1);
+}
+
 // x ln(x / e) with 0 ln 0 = 0.
 double xlogx_over(double x, double e) { return x == 0.0 ? 0.0 : x * std::log(x / e); }
 }  // namespace
@@ -44,7 +55,7 @@ double term_function::operator()(std::size_t g, std::int64_t x) const {
         case ordering::lr:
             return 2.0 * (xlogx_over(xd, nd * S_ / N_) + xlogx_over(nd - xd, nd * F_ / N_));
         case ordering::probability:
-            return log_choose(t_.n[g], t_.x[g]) - log_choose(t_.n[g], x);
+            return log_choose_fast(t_.n[g], t_.x[g]) - log_choose_fast(t_.n[g], x);
     }
     return 0.0;
 }
