@@ -147,7 +147,8 @@ struct reach {
 // One level of `reach`: mn[s] = min over x of term(x) + next_mn[s + x]
 // (likewise max). The loop runs over s inside x: every s is its own running
 // minimum, so there is no chain of dependent min/max from one x to the next
-// (the other way round took 10 % of a near-table call at N = 150).
+// and the compiler vectorises it (the other way round made a near-table call
+// at N = 150 a fifth slower: 61 against 49 us, 2026-12-02).
 void reach_level(const detail::term_row& term, std::int64_t n_g, std::int64_t lo, std::int64_t hi,
                  std::int64_t next_lo, std::int64_t next_hi, const std::vector<double>& next_mn,
                  const std::vector<double>& next_mx, std::vector<double>& mn, std::vector<double>& mx) {
@@ -503,7 +504,7 @@ private:
         double sure = 0.0;
         m.runs.clear();
         // Near one shared rate most source nodes are pruned empty: only the
-        // live ones are visited (scanning them all took a fifth of a call).
+        // live ones (those with a law) are visited.
         const auto i_from = static_cast<std::size_t>(s_from - p.plan.lo[k]);
         const auto i_to = static_cast<std::size_t>(s_to - p.plan.lo[k]);
         for (auto it = std::lower_bound(live_.begin(), live_.end(), i_from); it != live_.end() && *it <= i_to; ++it) {
