@@ -16,7 +16,8 @@ namespace tallyrates::detail {
 using omnibus::ordering;
 using omnibus::table;
 
-// ln C(n, k) by lgamma differences.
+// ln C(n, k) by lgamma differences (Boost, long double inside): the observed
+// table's probability. The term tables use a double-precision variant.
 double log_choose(std::int64_t n, std::int64_t k);
 
 // One term: the statistic's share from group g having x successes.
