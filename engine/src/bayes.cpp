@@ -17,6 +17,7 @@
 #include "tallyrates/arguments.hpp"
 #include "tallyrates/errors.hpp"
 #include "tallyrates/text.hpp"
+#include "bayes_across.hpp"
 
 namespace tallyrates::bayes {
 
@@ -146,20 +147,11 @@ namespace {
 // 1e-100 of the mass (Boost's inverse incomplete beta gives up near 1e-300).
 // Probabilities below about 1e-90 therefore keep only their absolute accuracy.
 constexpr double window_tail = 1e-100;
-// Adaptive Gauss-Kronrod: relative tolerance and the deepest bisection.
-// 1e-10, not tighter: the density of a law with parameters near 10^6 carries
-// rounding noise of about 1e-12 relative, and asking for 1e-11 made the error
-// estimate chase that noise down to the deepest level (87,000 evaluations
-// instead of 183, measured on Beta(990000.5, 10000.5), same value to 3e-15).
-// The estimate is pessimistic: the values keep their 1e-10 absolute accuracy
-// (tests/engine/test_bayes.cpp against mpmath).
-constexpr double quad_tolerance = 1e-10;
 // The credible bounds of a difference integrate a CDF unscaled and need it
 // to 1e-11 absolute, so they keep the tighter relative tolerance.
 constexpr double cdf_tolerance = 1e-11;
 // Depth 8 (256 pieces a side): a smooth integrand converges in a few; past
-// that the estimate only chases rounding noise (one pilot-against-10^6 case
-// took 36,000 evaluations at depth 12 for the same value to 15 digits).
+// that the estimate only chases rounding noise.
 constexpr unsigned quad_depth = 8;
 
 
@@ -179,106 +171,10 @@ double log_density(const beta_law& law, double x) {
 
 
 
-// log F(x) or log(1 - F(x)); -infinity when it underflows.
-double log_cdf(const beta_law& law, double x, bool upper) {
-    const double v =
-        upper ? boost::math::ibetac(law.a, law.b, x) : boost::math::ibeta(law.a, law.b, x);
-    return v > 0 ? std::log(v) : -HUGE_VAL;
-}
-
-// log of the integral of exp(g(x)) over [lo, hi], g finite somewhere inside:
-// split at the maximum of g, each side by adaptive Gauss-Kronrod on exp(g - max).
-template <class G>
-double log_integral(G g, double lo, double hi, double tolerance = quad_tolerance) {
-    if (!(hi > lo)) return -HUGE_VAL;
-    auto minus_g = [&](double x) {
-        const double v = g(x);
-        return std::isfinite(v) ? -v : std::numeric_limits<double>::max();
-    };
-    std::uintmax_t iterations = 200;
-    const auto [x_star, minus_g_star] =
-        boost::math::tools::brent_find_minima(minus_g, lo, hi, std::numeric_limits<double>::digits / 2, iterations);
-    const double g_star = -minus_g_star;
-    if (!std::isfinite(g_star)) return -HUGE_VAL;
-    auto f = [&](double x) {
-        const double v = g(x) - g_star;
-        return std::isfinite(v) ? std::exp(v) : 0.0;
-    };
-    double total = 0.0, error = 0.0;
-    for (const auto& [a, b] : {std::pair{lo, x_star}, std::pair{x_star, hi}}) {
-        if (!(b > a)) continue;
-        double part_error = 0.0;
-        total += boost::math::quadrature::gauss_kronrod<double, 61>::integrate(f, a, b, quad_depth, tolerance,
-                                                                               &part_error);
-        error += part_error;
-    }
-    // Enough when either the relative error is small or the absolute error of
-    // the probability itself is far below what a sheet shows (1e-11).
-    if (error > 1e-8 * total && error * std::exp(g_star) > 1e-11)
-        throw no_convergence("A posterior probability's integral did not reach its accuracy (relative error "
-                             "estimate " + format_short(error / total) + ").");
-    return g_star + std::log(total);
-}
-
 // The point below which (or, upper, above which) the law holds `tail` of its
-// mass. Boost's inverse gives up when that point is extremely close to 0 or
-// 1 (Beta(4, 98) at 1e-100: about 1e-27); then a bisection on the logarithm
-// of the distance to that end, where the incomplete beta itself is accurate.
+// mass (bayes_across.cpp: Boost's inverse, a bisection where it gives up).
 double tail_point(const beta_law& law, double tail, bool upper) {
-    try {
-        return upper ? boost::math::ibetac_inv(law.a, law.b, tail) : boost::math::ibeta_inv(law.a, law.b, tail);
-    } catch (const boost::math::evaluation_error&) {
-        // Distance d to the end (0 or 1) between the smallest normal number and the mean's distance.
-        auto excess = [&](double log_d) {
-            const double d = std::exp(log_d);
-            const double mass = upper ? boost::math::ibetac(law.a, law.b, 1 - d) : boost::math::ibeta(law.a, law.b, d);
-            return (mass > 0 ? std::log(mass) : -HUGE_VAL) - std::log(tail);
-        };
-        double lo = std::log(std::numeric_limits<double>::min());
-        double hi = std::log(upper ? 1 - mean(law) : mean(law));
-        for (int k = 0; k < 200 && hi - lo > 1e-12; ++k) {
-            const double mid = (lo + hi) / 2;
-            (excess(mid) < 0 ? lo : hi) = mid;
-        }
-        const double d = std::exp(lo);  // on the side holding less than `tail`
-        return upper ? 1 - d : d;
-    }
-}
-
-// The same integral when the integrand is infinite at an end of [lo, hi] (a
-// law with a parameter below 1 next to 0 or 1): tanh-sinh quadrature
-// (Boost.Math), which is made for such ends, scaled by the largest value met
-// on a grid inside. g takes the point t and its distance 1 - t, which
-// tanh-sinh hands over exactly near an end at 1 (where 1 - t itself would
-// have lost its digits).
-template <class G>
-double log_integral_singular(G g, double lo, double hi, double tolerance = 1e-12) {
-    double g_ref = -HUGE_VAL;
-    for (int k = 1; k < 64; ++k) {
-        const double t = lo + (hi - lo) * k / 64.0;
-        g_ref = std::max(g_ref, g(t, 1 - t));
-    }
-    if (!std::isfinite(g_ref)) return -HUGE_VAL;
-    auto f = [&](double t, double tc) {
-        // tc: distance to the nearer end, negative on the lower side.
-        const double one_minus_t = (tc > 0 && hi == 1.0) ? tc : 1 - t;
-        const double v = g(t, one_minus_t) - g_ref;
-        return std::isfinite(v) ? std::exp(v) : 0.0;
-    };
-    boost::math::quadrature::tanh_sinh<double> integrator(15);
-    double error = 0.0;
-    const double total = integrator.integrate(f, lo, hi, tolerance, &error);
-    if (error > 1e-8 * total && error * std::exp(g_ref) > 1e-11)
-        throw no_convergence("A posterior probability's integral did not reach its accuracy (relative error "
-                             "estimate " + format_short(error / total) + ").");
-    return g_ref + std::log(total);
-}
-
-// log density from t and 1 - t given apart, for a law with a parameter below
-// 1 (small parameters: log-gamma is exact enough for its constant).
-double log_density_ends(const beta_law& law, double t, double one_minus_t) {
-    return (law.a - 1) * std::log(t) + (law.b - 1) * std::log(one_minus_t) -
-           log_beta(law.a, law.b);
+    return upper ? 1 - detail::lower_tail_point(law.b, law.a, tail) : detail::lower_tail_point(law.a, law.b, tail);
 }
 
 bool singular_ends(const beta_law& law) { return law.a < 1 || law.b < 1; }
@@ -297,38 +193,11 @@ std::pair<double, double> window(const beta_law& law, double tail = window_tail)
     return {law.a < 1 ? 0.0 : tail_point(law, tail, false), law.b < 1 ? 1.0 : tail_point(law, tail, true)};
 }
 
-// The integral of f_law(t) T(t) over law's window, T given in logs.
-// How far an integral goes: the window's tail quantile and the relative
-// tolerance. Probabilities that may be tiny need the deep window and 1e-10;
-// one compared with a confidence needs neither (1e-16 cuts less than 2e-16,
-// and 1e-9 stays clear of the densities' rounding noise near 1e-11, which a
-// tighter tolerance chases to the deepest bisection: measured).
-struct reach_of_integral {
-    double tail, tolerance, singular_tolerance;  // the last for tanh-sinh, at an infinite end
-};
-constexpr reach_of_integral for_probability{window_tail, quad_tolerance, 1e-12}, for_comparison{1e-16, 1e-9, 1e-10};
-
-template <class T>
-double integral_over(const beta_law& law, reach_of_integral how, T log_tail) {
-    const auto [lo, hi] = window(law, how.tail);
-    if (singular_ends(law))
-        return std::exp(log_integral_singular(
-            [&](double t, double u) { return log_density_ends(law, t, u) + log_tail(t); }, lo, hi,
-            how.singular_tolerance));
-    return std::exp(
-        log_integral([&](double t) { return log_density(law, t) + log_tail(t); }, lo, hi, how.tolerance));
-}
-
-// P(X > Y) directly: the integral of f_X(t) F_Y(t) over X's window, or of
-// f_Y(t) (1 - F_X(t)) over Y's window when Y's is the narrower one. Over the
-// narrower law the other's tail is smooth, so the quadrature needs few
-// points: a pilot of 15 against a line of 10^6 (prior 0.5) takes about 50
-// times fewer than the other way round. No subtraction either way.
-double ahead_direct(const beta_law& x, const beta_law& y, reach_of_integral how) {
-    // Narrower by standard deviation: a window itself can cost hundreds of
-    // incomplete beta calls (tail_point's fallback), so only one is found.
-    if (sd(y) < sd(x)) return integral_over(y, how, [&](double t) { return log_cdf(x, t, true); });
-    return integral_over(x, how, [&](double t) { return log_cdf(y, t, false); });
+// P(X > Y) as an integral: the shared pass over the rate axis of
+// bayes_across.cpp for two groups (pieces cut at both laws' scales).
+double ahead_direct(const beta_law& x, const beta_law& y, const detail::reach& how) {
+    const beta_law both[] = {x, y};
+    return detail::compare_all(both, goal::high, how, false).best[0];
 }
 
 // Largest number of terms the finite sum may take (about 2 ms; 10^6 terms
@@ -371,22 +240,22 @@ double ahead_sum(const beta_law& x, const beta_law& y) {
 // mirrored (X > Y exactly when 1 - Y > 1 - X, and 1 - Y ~ Beta(b2, a2)), over
 // Y's second one: the fewer terms wins, so a line with 10^6 attempts and few
 // failures costs as many terms as it has failures.
-double ahead_small_side(const beta_law& x, const beta_law& y, reach_of_integral how) {
+double ahead_small_side(const beta_law& x, const beta_law& y, const detail::reach& how) {
     const bool direct = whole_and_small(x.a), mirrored = whole_and_small(y.b);
     if (mirrored && (!direct || y.b < x.a)) return ahead_sum({y.b, y.a}, {x.b, x.a});
     return direct ? ahead_sum(x, y) : ahead_direct(x, y, how);
 }
 
-double ahead_to(const beta_law& x, const beta_law& y, reach_of_integral how) {
+double ahead_to(const beta_law& x, const beta_law& y, const detail::reach& how) {
     const double p = mean(x) <= mean(y) ? ahead_small_side(x, y, how) : 1.0 - ahead_small_side(y, x, how);
     return std::clamp(p, 0.0, 1.0);
 }
 
 }  // namespace
 
-double ahead(const beta_law& x, const beta_law& y) { return ahead_to(x, y, for_probability); }
+double ahead(const beta_law& x, const beta_law& y) { return ahead_to(x, y, detail::for_probability); }
 
-double ahead_absolute(const beta_law& x, const beta_law& y) { return ahead_to(x, y, for_comparison); }
+double ahead_absolute(const beta_law& x, const beta_law& y) { return ahead_to(x, y, detail::for_comparison); }
 
 
 namespace {
@@ -536,86 +405,12 @@ void check_groups(std::size_t groups, std::size_t cap, const char* what) {
 
 double best(std::span<const beta_law> laws, std::size_t i, goal g) {
     check_groups(laws.size(), max_groups_best, "The probability of being the best");
-    const bool low = g == goal::low;
-    const auto [lo, hi] = window(laws[i]);
-    auto others = [&](double t) {
-        double v = 0.0;
-        for (std::size_t j = 0; j < laws.size() && std::isfinite(v); ++j)
-            if (j != i) v += log_cdf(laws[j], t, low);
-        return v;
-    };
-    const double log_p =
-        singular_ends(laws[i])
-            ? log_integral_singular([&](double t, double u) { return log_density_ends(laws[i], t, u) + others(t); },
-                                    lo, hi)
-            : log_integral([&](double t) { return log_density(laws[i], t) + others(t); }, lo, hi);
-    return std::clamp(std::exp(log_p), 0.0, 1.0);
+    return detail::compare_all(laws, g, detail::for_probability, false).best.at(i);
 }
-
-namespace {
-
-// E[best rate] over the laws (the highest, or the lowest for goal low).
-double expected_best(std::span<const beta_law> laws, goal g) {
-    // E[max] = integral over [0, 1] of (1 - prod F_j); below every window the
-    // product is 0 (integrand 1), above every window it is 1 (integrand 0).
-    // For goal low, E[min] = integral of prod (1 - F_j). The integrand has
-    // square-root corners where a law with a parameter below 1 meets 0 or 1,
-    // so the pieces between the laws' means go to tanh-sinh quadrature
-    // (Boost.Math), which takes such ends in its stride.
-    std::vector<double> cuts{1.0, 0.0};
-    for (const auto& law : laws) {
-        const auto [lo, hi] = window(law);
-        cuts[0] = std::min(cuts[0], lo);
-        cuts[1] = std::max(cuts[1], hi);
-        cuts.push_back(mean(law));
-    }
-    const double from = cuts[0], to = cuts[1];
-    const auto [low_mean, high_mean] = std::minmax_element(cuts.begin() + 2, cuts.end());
-    const std::vector<double> span{from, std::max(from, *low_mean), std::min(to, *high_mean), to};
-    std::sort(cuts.begin(), cuts.end());
-    cuts.erase(std::unique(cuts.begin(), cuts.end()), cuts.end());
-    const bool high = g == goal::high;
-    auto f = [&](double t) {
-        double v = 0.0;
-        for (const auto& law : laws) v += log_cdf(law, t, !high);
-        return high ? -std::expm1(v) : std::exp(v);
-    };
-    double expected_best = from, error = 0.0;
-    if (std::none_of(laws.begin(), laws.end(), singular_ends)) {
-        // A smooth integrand: adaptive Gauss-Kronrod over the whole span,
-        // split only at the lowest and highest mean, where the product turns
-        // (measured: 2 to 3 times fewer points than tanh-sinh piece by piece).
-        for (std::size_t k = 0; k + 1 < span.size(); ++k) {
-            if (!(span[k + 1] > span[k])) continue;
-            double piece_error = 0.0;
-            expected_best += boost::math::quadrature::gauss_kronrod<double, 61>::integrate(
-                f, span[k], span[k + 1], quad_depth, 1e-12, &piece_error);
-            error += piece_error;
-        }
-    } else {
-        boost::math::quadrature::tanh_sinh<double> integrator(12);
-        for (std::size_t k = 0; k + 1 < cuts.size(); ++k) {
-            if (cuts[k] < from || !(cuts[k + 1] > cuts[k])) continue;
-            double piece_error = 0.0;
-            expected_best += integrator.integrate(f, cuts[k], cuts[k + 1], 1e-12, &piece_error);
-            error += piece_error;
-        }
-    }
-    if (error > 1e-10)
-        throw no_convergence("The expected loss's integral did not reach its accuracy (error estimate " +
-                             format_short(error) + ").");
-    return expected_best;
-}
-
-double shortfall(double best_rate, const beta_law& law, goal g) {
-    return std::max(0.0, g == goal::high ? best_rate - mean(law) : mean(law) - best_rate);
-}
-
-}  // namespace
 
 double loss(std::span<const beta_law> laws, std::size_t i, goal g) {
     check_groups(laws.size(), max_groups_best, "The expected loss");
-    return shortfall(expected_best(laws, g), laws[i], g);
+    return detail::compare_all(laws, g, detail::for_probability).loss.at(i);
 }
 
 std::vector<std::vector<double>> order(std::span<const beta_law> laws) {
@@ -690,11 +485,11 @@ std::vector<std::vector<std::optional<double>>> curves(const counts& c, std::int
 std::vector<summary_row> summary(const counts& c, double level, goal g, prior p) {
     const auto laws = posteriors(c, p);
     check_groups(laws.size(), max_groups_table, "The posterior table");
-    const double best_rate = expected_best(laws, g);  // one integral for every row's loss
+    const auto across = detail::compare_all(laws, g, detail::for_probability);  // every row's P(best) and loss
     std::vector<summary_row> rows;
     for (std::size_t k = 0; k < laws.size(); ++k)
         rows.push_back({c.groups()[k].position, mean(laws[k]), credible(laws[k], level, kind::central),
-                        best(laws, k, g), shortfall(best_rate, laws[k], g)});
+                        across.best[k], across.loss[k]});
     return rows;
 }
 

@@ -1,0 +1,256 @@
+// bayes_across.cpp - the one pass over the rate axis for answers across
+// groups; method and sources in bayes_across.hpp.
+#include "bayes_across.hpp"
+
+#include <algorithm>
+#include <boost/math/special_functions/beta.hpp>
+#include <boost/math/special_functions/gamma.hpp>
+#include <cmath>
+#include <limits>
+
+#include "detail/vector_quadrature.hpp"
+#include "tallyrates/errors.hpp"
+#include "tallyrates/text.hpp"
+
+namespace tallyrates::bayes::detail {
+
+double lower_tail_point(double a, double b, double tail) {
+    try {
+        return boost::math::ibeta_inv(a, b, tail);
+    } catch (const boost::math::evaluation_error&) {
+        // Boost's inverse gives up extremely close to 0 (Beta(4, 98) at
+        // 1e-100: about 1e-27): bisect on log d, where the incomplete beta
+        // itself is accurate, between the smallest normal number and the mean.
+        auto excess = [&](double log_d) {
+            const double mass = boost::math::ibeta(a, b, std::exp(log_d));
+            return (mass > 0 ? std::log(mass) : -HUGE_VAL) - std::log(tail);
+        };
+        double lo = std::log(std::numeric_limits<double>::min()), hi = std::log(a / (a + b));
+        for (int k = 0; k < 200 && hi - lo > 1e-12; ++k) {
+            const double mid = (lo + hi) / 2;
+            (excess(mid) < 0 ? lo : hi) = mid;
+        }
+        return std::exp(lo);  // on the side holding less than `tail`
+    }
+}
+
+namespace {
+
+using tallyrates::detail::integrate_pieces;
+using tallyrates::detail::quadrature_piece;
+using tallyrates::detail::vector_integrals;
+using tallyrates::detail::vector_tolerance;
+
+// A law in the coordinate of the pass, with its window [low, 1 - high_gap]
+// kept as two distances from their ends (each exact near its end).
+struct placed_law {
+    double a, b, low, high_gap;
+    double high() const { return 1 - high_gap; }
+    double mean() const { return a / (a + b); }
+    double sd() const {
+        const double n = a + b;
+        return std::sqrt(a * b / (n * n * (n + 1)));
+    }
+};
+
+placed_law place(const beta_law& law, double tail, bool mirrored) {
+    const double a = mirrored ? law.b : law.a, b = mirrored ? law.a : law.b;
+    // An end where the density is infinite holds about d^a within d of it:
+    // the window reaches that end.
+    return {a, b, a < 1 ? 0.0 : lower_tail_point(a, b, tail), b < 1 ? 0.0 : lower_tail_point(b, a, tail)};
+}
+
+// Maps of a piece's variable v to the rate s (and 1 - s, exactly near 1).
+enum piece_map : int { linear = 0, from_zero = 1, from_one = 2 };
+
+struct axis_point {
+    double s, s_gap, jacobian;  // s, 1 - s, ds/dv
+};
+
+struct end_maps {
+    double zero_end = 0, zero_power = 1;  // s = zero_end v^power on [0, 1]
+    double one_gap = 0, one_power = 1;    // 1 - s = one_gap v^power on [0, 1]
+};
+
+axis_point point_at(int map, double v, const end_maps& m) {
+    if (map == from_zero) {
+        const double s = m.zero_end * std::pow(v, m.zero_power);
+        return {s, 1 - s, m.zero_end * m.zero_power * std::pow(v, m.zero_power - 1)};
+    }
+    if (map == from_one) {
+        const double gap = m.one_gap * std::pow(v, m.one_power);
+        return {1 - gap, gap, m.one_gap * m.one_power * std::pow(v, m.one_power - 1)};
+    }
+    return {v, 1 - v, 1.0};
+}
+
+// log density, from whichever of s and 1 - s is exact.
+double log_density_at(const placed_law& law, const axis_point& p) {
+    try {
+        const double d = p.s <= 0.5 ? boost::math::ibeta_derivative(law.a, law.b, p.s)
+                                    : boost::math::ibeta_derivative(law.b, law.a, p.s_gap);
+        return d > 0 ? std::log(d) : -HUGE_VAL;
+    } catch (const std::overflow_error&) {
+        // Next to an end where the density is infinite (a parameter below 1).
+        return (law.a - 1) * std::log(p.s) + (law.b - 1) * std::log(p.s_gap) - boost::math::lgamma(law.a) -
+               boost::math::lgamma(law.b) + boost::math::lgamma(law.a + law.b);
+    }
+}
+
+// log F(s) (lower) or log (1 - F(s)), from whichever of s and 1 - s is exact.
+double log_cdf_at(const placed_law& law, const axis_point& p, bool lower) {
+    const double v = p.s <= 0.5 ? (lower ? boost::math::ibeta(law.a, law.b, p.s) : boost::math::ibetac(law.a, law.b, p.s))
+                                : (lower ? boost::math::ibetac(law.b, law.a, p.s_gap)
+                                         : boost::math::ibeta(law.b, law.a, p.s_gap));
+    return v > 0 ? std::log(v) : -HUGE_VAL;
+}
+
+struct breakpoint {
+    double at, scale;
+};
+
+// The pieces between `from` and `to`, cut at every law's scale; points closer
+// than half the finer scale of two neighbours are merged.
+std::vector<double> cuts_between(const std::vector<placed_law>& laws, double from, double to) {
+    static constexpr double sds[] = {0, 1, -1, 2, -2, 3, -3, 4, -4, 6, -6, 8, -8, 12, -12, 16, -16};
+    std::vector<breakpoint> points;
+    for (const auto& law : laws) {
+        const double m = law.mean(), s = law.sd();
+        for (double k : sds) points.push_back({m + k * s, s});
+        points.push_back({law.low, s});
+        points.push_back({law.high(), s});
+    }
+    // A density infinite at an end varies over decades next to it. Where the
+    // pieces reach that end, the substitution of compare_all takes care of
+    // it; where they stop short, one piece per decade of the distance.
+    const bool infinite_at_zero = std::any_of(laws.begin(), laws.end(), [](const placed_law& l) { return l.a < 1; });
+    const bool infinite_at_one = std::any_of(laws.begin(), laws.end(), [](const placed_law& l) { return l.b < 1; });
+    if (infinite_at_zero && from > 0)
+        for (double d = std::max(from, 1e-300) * 10; d < 0.1; d *= 10) points.push_back({d, d});
+    if (infinite_at_one && to < 1)
+        for (double d = std::max(1 - to, 1e-300) * 10; d < 0.1; d *= 10) points.push_back({1 - d, d});
+    std::sort(points.begin(), points.end(), [](const breakpoint& x, const breakpoint& y) { return x.at < y.at; });
+    std::vector<double> cuts{from};
+    double last_scale = HUGE_VAL;
+    for (const auto& p : points) {
+        if (!(p.at > from && p.at < to)) continue;
+        if (p.at - cuts.back() > 0.5 * std::min(p.scale, last_scale)) {
+            cuts.push_back(p.at);
+            last_scale = p.scale;
+        } else {
+            last_scale = std::min(last_scale, p.scale);
+        }
+    }
+    cuts.push_back(to);
+    // Both ends singular and nothing between: two pieces, one map each.
+    if (cuts.size() == 2 && from == 0 && to == 1 && infinite_at_zero && infinite_at_one) cuts.insert(cuts.begin() + 1, 0.5);
+    return cuts;
+}
+
+}  // namespace
+
+across_groups compare_all(std::span<const beta_law> input, goal g, reach how, bool with_expected) {
+    const std::size_t G = input.size();
+    // Where the integrals can be non-zero, in the original coordinate: for the
+    // highest, from the largest lower edge to the largest upper one.
+    std::vector<placed_law> laws;
+    for (const auto& law : input) laws.push_back(place(law, how.tail, false));
+    const bool high = g == goal::high;
+    auto range_of = [&](bool want_high) {
+        double from = want_high ? 0.0 : 1.0, to = want_high ? 0.0 : 1.0;
+        for (const auto& l : laws) {
+            from = want_high ? std::max(from, l.low) : std::min(from, l.low);
+            to = want_high ? std::max(to, l.high()) : std::min(to, l.high());
+        }
+        return std::pair{from, to};
+    };
+    const auto [from0, to0] = range_of(high);
+    const bool mirrored = from0 + to0 > 1;
+    if (mirrored)
+        for (auto& l : laws) l = {l.b, l.a, l.high_gap, l.low};
+    const bool want_high = high != mirrored;
+    auto [from, to] = range_of(want_high);
+    const std::size_t width = G + (with_expected ? 1 : 0);
+    across_groups out;
+    out.best.assign(G, 0.0);
+    if (!(to > from)) to = from;
+
+    std::vector<double> cuts = to > from ? cuts_between(laws, from, to) : std::vector<double>{};
+    end_maps maps;
+    double a_min = 1, b_min = 1;
+    for (const auto& l : laws) {
+        a_min = std::min(a_min, l.a);
+        b_min = std::min(b_min, l.b);
+    }
+    std::vector<quadrature_piece> pieces;
+    for (std::size_t k = 0; k + 1 < cuts.size(); ++k) {
+        if (!(cuts[k + 1] > cuts[k])) continue;
+        if (cuts[k] == 0 && a_min < 1) {
+            maps.zero_end = cuts[k + 1];
+            maps.zero_power = 1 / a_min;
+            pieces.push_back({0.0, 1.0, from_zero});
+        } else if (cuts[k + 1] == 1 && b_min < 1) {
+            maps.one_gap = 1 - cuts[k];
+            maps.one_power = 1 / b_min;
+            pieces.push_back({0.0, 1.0, from_one});
+        } else {
+            pieces.push_back({cuts[k], cuts[k + 1], linear});
+        }
+    }
+
+    std::vector<double> log_f(G), log_c(G), prefix(G + 1);
+    double law_evaluations = 0;
+    auto integrand = [&](int map, double v, double* values) {
+        const axis_point p = point_at(map, v, maps);
+        if (!(p.jacobian > 0) || !(p.s > 0) || !(p.s_gap > 0) || !std::isfinite(p.jacobian)) {
+            std::fill(values, values + width, 0.0);
+            return;
+        }
+        for (std::size_t j = 0; j < G; ++j) {
+            const placed_law& l = laws[j];
+            if (p.s < l.low || p.s_gap < l.high_gap) {
+                // Outside the window: no density; the CDF is 0 below, 1 above.
+                const bool below = p.s < l.low;
+                log_f[j] = -HUGE_VAL;
+                log_c[j] = (below == want_high) ? -HUGE_VAL : 0.0;
+                continue;
+            }
+            law_evaluations += 1;
+            log_f[j] = log_density_at(l, p);
+            log_c[j] = log_cdf_at(l, p, want_high);
+        }
+        if (law_evaluations > max_law_evaluations)
+            throw budget_exceeded("Comparing " + std::to_string(G) + " groups needs more than " +
+                                  format_number(max_law_evaluations) +
+                                  " evaluations of their laws, the cap of one call; compare fewer groups.");
+        // Every group's product of the others without dividing: prefix and suffix sums in logs.
+        prefix[0] = 0;
+        for (std::size_t j = 0; j < G; ++j) prefix[j + 1] = prefix[j] + log_c[j];
+        double suffix = 0;
+        for (std::size_t j = G; j-- > 0;) {
+            values[j] = std::isfinite(log_f[j]) ? std::exp(log_f[j] + prefix[j] + suffix) * p.jacobian : 0.0;
+            suffix += log_c[j];
+        }
+        if (with_expected) {
+            const double all = prefix[G];
+            values[G] = (want_high ? -std::expm1(all) : std::exp(all)) * p.jacobian;
+        }
+    };
+    vector_tolerance tolerance{how.relative, std::vector<double>(width, how.absolute)};
+    if (with_expected) tolerance.absolute[G] = 1e-13;
+    const auto integrals =
+        pieces.empty() ? vector_integrals{std::vector<double>(width, 0.0), std::vector<double>(width, 0.0), 0}
+                       : integrate_pieces(integrand, pieces, width, tolerance);
+    for (std::size_t k = 0; k < G; ++k) out.best[k] = std::clamp(integrals.value[k], 0.0, 1.0);
+    if (with_expected) {
+        // Below `from` the integrand of the expected best is 1 (some law is
+        // surely below / every law is surely above), beyond `to` it is 0.
+        const double expected = from + integrals.value[G];
+        out.expected_best = mirrored ? 1 - expected : expected;
+        for (const auto& l : laws)
+            out.loss.push_back(std::max(0.0, want_high ? expected - l.mean() : l.mean() - expected));
+    }
+    return out;
+}
+
+}  // namespace tallyrates::bayes::detail
