@@ -49,9 +49,11 @@ inline constexpr reach for_probability{1e-100, 1e-10, 1e-300};
 // less than 2e-16, and 1e-9 absolute is plenty.
 inline constexpr reach for_comparison{1e-16, 1e-9, 1e-12};
 
-// The point below which Beta(a, b) holds `tail` of its mass, as a distance
-// from 0 (exact however close to 0). Boost's inverse, with a bisection on the
-// logarithm of the distance where that inverse gives up.
+// A point below which Beta(a, b) holds at most `tail` of its mass, as a
+// distance from 0 (exact however close to 0): Boost's inverse, with a
+// bisection on the logarithm of the distance where that inverse gives up,
+// and the normal law's 25 standard deviations when both parameters exceed
+// 10^5 (wider than the quantile, never narrower).
 double lower_tail_point(double a, double b, double tail);
 
 struct across_groups {
@@ -64,8 +66,9 @@ struct across_groups {
 // best rate (and the losses), for a probability alone.
 across_groups compare_all(std::span<const beta_law> laws, goal g, reach how, bool with_expected = true);
 
-// Work cap of one pass, in law evaluations at quadrature nodes (about 0.3 us
-// each): past it, budget_exceeded (Err:523).
-inline constexpr double max_law_evaluations = 3e7;
+// Work cap of one pass, in law evaluations at quadrature nodes weighted by
+// their cost (a unit is about 2 us, so the cap is about 2 s): past it,
+// budget_exceeded (Err:523).
+inline constexpr double max_law_evaluations = 1e6;
 
 }  // namespace tallyrates::bayes::detail

@@ -13,22 +13,24 @@
 //   or 1 when the density is monotone there;
 // - ABOVE: P(rate > r) = 1 - I_r(a, b), from the regularized incomplete beta;
 // - NEXT: the beta-binomial predictive law of the successes in m further
-//   attempts (Gelman et al. 2013, 2.4): its upper tail summed by the ratio of
-//   successive terms, starting from a term computed in logs.
+//   attempts (Gelman et al. 2013, 2.4): P(at least k) = P(rate > Y) with
+//   Y ~ Beta(k, m - k + 1) (the binomial tail as an incomplete beta, DLMF
+//   8.17.5), computed as AHEAD below, so its cost does not grow with m;
 // Comparisons of groups are one-dimensional integrals over a rate x:
 // - AHEAD: P(rate_1 > rate_2), on the side that is the smaller probability so
 //   that small answers keep their relative accuracy: the finite sum of Cook
 //   (2005, technical report, UT MD Anderson Cancer Center) over the first
 //   Beta parameter of the group behind, or over the second of the group ahead
 //   (by symmetry), whichever is the smaller whole number up to 2,000,000
-//   (whole counts and a whole prior), else the integral of f_1(x) F_2(x) dx; BEST: P(group i is best) = integral of
-//   f_i(x) prod_{j != i} F_j(x) dx (1 - F_j for goal "low"); LOSS:
-//   E[max_j rate_j] - E[rate_i] with E[max] = integral of (1 - prod_j F_j(x)) dx.
-//   The integrand is kept in logs, integrated only where the mass is (between
-//   quantiles at 1e-100 of the laws involved, so what is cut is below 1e-90),
-//   split at its maximum (Brent's method), by adaptive Gauss-Kronrod (61
-//   points, Boost.Math) to a relative error estimate of 1e-12; an estimate
-//   above 1e-9 is a failure (Err:523), never a silent answer.
+//   (whole counts and a whole prior), else the integral of f_1(x) F_2(x) dx;
+//   BEST: P(group i is best) = integral of f_i(x) prod_{j != i} F_j(x) dx
+//   (1 - F_j for goal "low"); LOSS: E[max_j rate_j] - E[rate_i] with
+//   E[max] = integral of (1 - prod_j F_j(x)) dx. The integrals come from one
+//   pass over the rate axis for all groups at once (src/bayes_across.hpp:
+//   pieces cut at every law's scale, within the laws' 1e-100 windows, so what
+//   is cut is below 1e-90; adaptive Gauss-Kronrod to a relative error
+//   estimate of 1e-10 per answer); a pass that does not reach it within its
+//   caps is a failure (Err:523), never a silent answer.
 // - SAME: the posterior probability that all groups share one rate against
 //   all rates different, from the two marginal likelihoods in closed form
 //   (beta functions, in logs; Kass & Raftery 1995, JASA 90:773, for Bayes
@@ -56,7 +58,13 @@ struct beta_law {
     double a = 1.0, b = 1.0;
 };
 
-// Checks the prior (both > 0 and finite; invalid_input otherwise).
+// The prior parameters accepted. Above 10^6 a prior outweighs any tally a
+// sheet holds and, near 10^16, swallows the counts in rounding (a prior of
+// 1e300 made 13 of 14 and 10 of 14 the same law); below 0.01 a group with no
+// successes puts nearly all its mass within 1e-100 of 0, which no
+// double-precision answer resolves. Common priors (1, 0.5, 1/3) lie well inside.
+inline constexpr double min_prior = 0.01, max_prior = 1e6;
+// Checks the prior (both within [min_prior, max_prior]; invalid_input otherwise).
 prior checked(prior p);
 // The posterior of the group at position i (blank rows refused; a group
 // without attempts has the prior as its posterior).
@@ -66,7 +74,8 @@ double mean(const beta_law& law);
 interval credible(const beta_law& law, double level, kind how);
 // P(rate > r), or P(rate < r) for goal low; r in [0, 1].
 double above(const beta_law& law, double rate, goal g);
-// P(at least k successes in the next m attempts); 0 <= k <= m, m up to 10^7.
+// P(at least k successes in the next m attempts); 0 <= k <= m (any m the
+// arguments allow, up to 10^15: the answer is one comparison of two laws).
 double next_at_least(const beta_law& law, std::int64_t m, std::int64_t k);
 
 // P(rate of law x > rate of law y).
