@@ -159,7 +159,10 @@ const group& group_with_attempts(const counts& c, double pos, const char* argume
 }
 
 double difference(const counts& c, double i, double j) {
-    return group_with_attempts(c, i, "i").rate() - group_with_attempts(c, j, "j").rate();
+    const group& a = group_with_attempts(c, i, "i");
+    const group& b = group_with_attempts(c, j, "j");
+    distinct(a, b);  // as every other function of a pair: i = j is a mistake, not a difference of 0
+    return a.rate() - b.rate();
 }
 
 interval difference_interval(const group& a, const group& b, double level, interval_method how) {

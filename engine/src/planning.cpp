@@ -15,6 +15,9 @@ namespace tallyrates::planning {
 
 namespace {
 
+// Steps of a root search before it is called a failure (Err:523).
+constexpr std::uintmax_t max_search_steps = 100;
+
 [[noreturn]] void beyond_cap(const char* what) {
     throw unreachable_target(std::string("This needs more than ") + format_number(max_attempts) + " " + what +
                              ", the planning cap: relax the target.");
@@ -108,19 +111,29 @@ std::int64_t first_possible(double rate, double half, double level, one_rate::me
     // A bracket around the normal-approximation size z^2 p (1 - p) / E^2,
     // widened by factors of 4, then the root down to a bracket narrower than
     // one attempt: about 10 evaluations where a bisection over [1, 10^9] took 30.
+    // Every step below stays within [1, max_attempts]: a target beyond the
+    // cap (a half-width of 1e-9 needs about 10^18 attempts) is refused when
+    // the cap itself does not meet it, before any search. Past the cap a
+    // double no longer counts single attempts (10^18 + 1 == 10^18), which is
+    // how a search without that check ran for ever.
+    if (!meets(max_attempts)) beyond_cap("attempts");
     const double z = one_rate::two_sided_z(level);
-    double lo = std::max(1.0, std::floor(z * z * rate * (1 - rate) / (half * half))), hi = lo;
+    double lo = std::clamp(std::floor(z * z * rate * (1 - rate) / (half * half)), 1.0, max_attempts), hi = lo;
     while (lo > 1 && meets(lo)) lo = std::max(1.0, std::floor(lo / 4));
-    while (!meets(hi)) {
-        if (hi >= max_attempts) beyond_cap("attempts");
-        hi = std::min(max_attempts, 4 * hi);
-    }
+    while (!meets(hi)) hi = std::min(max_attempts, 4 * hi);  // ends: the cap meets the target
     if (meets(lo)) return static_cast<std::int64_t>(lo);
-    std::uintmax_t iterations = 100;
+    std::uintmax_t iterations = max_search_steps;
     const auto root = boost::math::tools::toms748_solve([&](double n) { return envelope(n) - half; }, lo, hi,
                                                         [](double a, double b) { return b - a < 0.5; }, iterations);
+    if (iterations >= max_search_steps)
+        throw no_convergence("The search for the number of attempts did not settle in " +
+                             std::to_string(max_search_steps) + " steps; try another interval method.");
     lo = std::ceil(root.first);
-    while (!meets(lo)) ++lo;  // at most a step or two: the bracket is narrower than one attempt
+    // At most a step or two: the bracket is narrower than one attempt.
+    for (int step = 0; !meets(lo); ++step) {
+        if (step >= 64 || lo >= max_attempts) beyond_cap("attempts");
+        ++lo;
+    }
     return static_cast<std::int64_t>(lo);
 }
 

@@ -36,6 +36,17 @@ std::vector<double> scores_of(const counts& c, std::span<const entry> scores) {
                                 g.position);
         s.push_back(e.value);
     }
+    // z does not change when every score is multiplied by one positive
+    // number: scale by the power of two that brings the largest magnitude
+    // near 1, so that scores such as 1e300 cannot overflow the sums of
+    // squares below (they gave z = 0), nor 1e-300 underflow. A power of two
+    // scales every sum and product exactly: z keeps every bit.
+    double largest = 0;
+    for (double v : s) largest = std::max(largest, std::fabs(v));
+    if (largest > 0) {
+        const int shift = std::ilogb(largest);
+        for (double& v : s) v = std::ldexp(v, -shift);
+    }
     return s;
 }
 

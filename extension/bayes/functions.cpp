@@ -78,6 +78,7 @@ double rates::postAhead(const caller& document, const cells& successes, const ce
     return guarded([&] {
         const auto c = convert::counts_of(document, successes, attempts);
         const auto p = prior_of(prior_a, prior_b);
+        pairwise::distinct(c.at_position(i, "i"), c.at_position(j, "j"));
         return finite(bayes::ahead(bayes::posterior(c, i, p), bayes::posterior(c, j, p)));
     });
 }
