@@ -34,9 +34,10 @@ inline constexpr argument level{
 inline constexpr argument prior_a{
     "prior_a",
     "What you believed before these counts, as successes: with prior_b, a Beta prior shared by every group. "
-    "1 and 1 (the default) treat every rate as equally likely; 0.5 and 0.5 is Jeffreys' prior. Above 0.",
+    "1 and 1 (the default) treat every rate as equally likely; 0.5 and 0.5 is Jeffreys' prior. From 0.01 to "
+    "1000000.",
     "1"};
-inline constexpr argument prior_b{"prior_b", "What you believed before these counts, as failures (see prior_a). Above 0.",
+inline constexpr argument prior_b{"prior_b", "What you believed before these counts, as failures (see prior_a). From 0.01 to 1000000.",
                                   "1"};
 inline constexpr argument goal{
     "goal",

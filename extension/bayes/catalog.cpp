@@ -19,7 +19,7 @@ using shared::successes;
 
 #define WHY_502_POST                                                                                        \
     " If the cell shows Err:502: i must name a filled row of the range (a group with 0 attempts is fine: it "   \
-    "keeps the prior), priors must be above 0 and words as listed; RATES.CHECK on the same ranges checks the " \
+    "keeps the prior), priors must lie from 0.01 to 1000000 and words as listed; RATES.CHECK on the same ranges checks the " \
     "counts."
 
 constexpr argument credible_level{

@@ -105,7 +105,7 @@ constexpr std::array table{
              "with probability `confidence` (RATES.POST.AHEAD): how long a perfect pilot must keep going before "
              "it is trusted over the established line. 0 when it already is; after a failure, enter it and read "
              "the new answer. Err:502: RATES.CHECK on the same ranges with the same i and j checks the counts "
-             "and positions; confidence must lie strictly between 0 and 1, priors above 0." WHY_523_PLAN
+             "and positions; confidence must lie strictly between 0 and 1, priors from 0.01 to 1000000." WHY_523_PLAN
              " (confidence 1, or group j practically perfect).",
              ahead_args},
 };

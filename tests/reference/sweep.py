@@ -1,0 +1,382 @@
+#!/usr/bin/python3
+"""Property sweeps: seeded random tallies from the whole plausible input space,
+each answer computed here by a method that shares no code with the engine.
+
+Writes sweep.csv (family, case, successes, attempts, quantity, value, source).
+tests/engine/test_sweep.cpp feeds every row to the engine. Run with Debian's
+/usr/bin/python3:
+
+    /usr/bin/python3 tests/reference/sweep.py > tests/reference/sweep.csv
+
+The space (issue 18): 2 to 30 groups (the Bayesian references 2 to 12, the
+invariants of test_sweep.cpp up to 30); 1 to 10^7 attempts per group, mixed
+within one tally (log-uniform); rates anywhere, near 0 and 1, x = 0 and x = n;
+priors 0.05 to 100 besides the flat and Jeffreys' ones; levels 0.5 to 0.9999;
+both goals. The seed is fixed, so the file is the same at every run.
+
+References (each row names its own):
+  Bayesian comparisons: P(best), E[best], P(ahead) and the prediction by the
+      quantile substitution u = F_i(t): P(group i best) is the integral over
+      u in [0, 1] of prod_{j != i} C_j(Q_i(u)), a bounded integrand, by
+      composite Gauss-Legendre (numpy nodes) on pieces cut where each other
+      law's CDF turns (its mean +- up to 40 sd mapped through F_i), with
+      scipy.stats.beta's cdf, sf and ppf. Not scipy.special.betainc: that
+      Cephes routine is wrong for large parameters in scipy 1.10 (0.7317
+      instead of 0.5000 for Beta(70041586, 210124759) at 0.25, where an exact
+      50-digit binomial sum in mpmath gives 0.500022934549111, as does
+      Boost.Math, which scipy.stats.beta calls). Each tally is
+      recomputed with twice the nodes and left out if the two differ by more
+      than 1e-11 (about a quarter of the tallies: laws piled against an end). The engine integrates densities over the rate axis with
+      Boost; the two share nothing but the definitions.
+  The prediction for m <= 2000 also from scipy.stats.betabinom.sf (checked
+      against the quadrature here).
+  Credible bounds: Brent's root (scipy.optimize.brentq, rtol 1e-15) of
+      scipy.stats.beta.cdf.
+  One-rate and difference intervals, pair p-values, family adjustments,
+      chi-square and likelihood-ratio tests, residuals: scipy and statsmodels
+      as in generate.py (the Miettinen-Nurminen interval from generate.py's
+      independent bisection).
+  Planning: the smallest n by direct search over every n with scipy's
+      binomial law (demonstration) and statsmodels' intervals (width), the
+      power formula at 50 digits with mpmath.
+"""
+import csv
+import math
+import sys
+import warnings
+
+import mpmath
+import numpy as np
+import scipy
+import scipy.optimize
+import scipy.special as sp
+import scipy.stats
+import statsmodels
+from scipy.stats import chi2_contingency
+from statsmodels.stats.contingency_tables import Table
+from statsmodels.stats.multitest import multipletests
+from statsmodels.stats.proportion import confint_proportions_2indep, proportion_confint
+
+sys.path.insert(0, __file__.rsplit("/", 1)[0])
+from generate import mn_interval, pair_p_values  # noqa: E402  (independent implementations)
+
+SCIPY = "scipy " + scipy.__version__
+STATSMODELS = "statsmodels " + statsmodels.__version__
+QUAD = "u-substitution Gauss-Legendre (sweep.py) with " + SCIPY + " stats.beta cdf/sf/ppf"
+RNG = np.random.default_rng(20261205)
+CASES = 300  # per family
+
+
+def fmt(v):
+    return repr(float(v))
+
+
+def out(w, family, case, x, n, quantity, value, source):
+    w.writerow([family, case, " ".join(map(str, x)), " ".join(map(str, n)), quantity, fmt(value), source])
+
+
+# ---- the space of tallies ----
+
+def attempts(g):
+    """Mixed sizes within one tally: log-uniform from 1 to 10^7, some equal."""
+    if RNG.random() < 0.2:
+        return [int(10 ** RNG.uniform(0, 5))] * g
+    return [int(10 ** RNG.uniform(0, 7)) for _ in range(g)]
+
+
+def successes(n):
+    kind = RNG.random()
+    if kind < 0.1:
+        return 0
+    if kind < 0.2:
+        return n
+    if kind < 0.35:
+        p = 10 ** RNG.uniform(-4, -1)  # near 0
+    elif kind < 0.5:
+        p = 1 - 10 ** RNG.uniform(-4, -1)  # near 1
+    else:
+        p = RNG.uniform(0.02, 0.98)
+    return int(RNG.binomial(n, p))
+
+
+def tally(g_low, g_high):
+    g = int(RNG.integers(g_low, g_high + 1))
+    n = attempts(g)
+    return [successes(k) for k in n], n
+
+
+def prior():
+    kind = RNG.random()
+    if kind < 0.3:
+        return 1.0, 1.0
+    if kind < 0.5:
+        return 0.5, 0.5
+    return float(round(10 ** RNG.uniform(math.log10(0.05), 2), 3)), float(round(10 ** RNG.uniform(math.log10(0.05), 2), 3))
+
+
+def level():
+    return float(round(RNG.choice([0.5, 0.8, 0.9, 0.95, 0.99, 0.999, 0.9999, RNG.uniform(0.5, 0.9999)]), 4))
+
+
+# ---- Bayesian references ----
+
+GL_NODES, GL_WEIGHTS = np.polynomial.legendre.leggauss(10)
+GL2_NODES, GL2_WEIGHTS = np.polynomial.legendre.leggauss(20)
+SDS = np.concatenate([-np.geomspace(40, 0.25, 16), [0.0], np.geomspace(0.25, 40, 16)])
+DECADES = 10.0 ** -np.arange(1, 300, 10)
+# the substitution's own ends: Q_i(u) moves fastest near u = 0 and 1
+U_ENDS = np.geomspace(1e-16, 0.025, 40)
+
+
+def betainc(a, b, x):
+    return scipy.stats.beta.cdf(x, a, b)
+
+
+def betaincc(a, b, x):
+    return scipy.stats.beta.sf(x, a, b)
+
+
+def law_points(a, b):
+    m = a / (a + b)
+    s = math.sqrt(a * b / ((a + b) ** 2 * (a + b + 1)))
+    t = m + s * SDS
+    t = t[(t > 0) & (t < 1)]
+    parts = [t]
+    if a < 1:  # a law piled against 0: decades of the distance to it
+        parts.append(DECADES)
+    if b < 1:
+        parts.append(1 - DECADES[DECADES > 1e-15])
+    return np.concatenate(parts)
+
+
+def best_and_expected(laws, goal_high, nodes=GL_NODES, weights=GL_WEIGHTS):
+    """P(best) of every law and E[best rate], by u = F_i(t) for each law i."""
+    best, expected = [], 0.0
+    for i, (a, b) in enumerate(laws):
+        cuts = [np.linspace(0, 1, 41), U_ENDS, 1 - U_ENDS] + [betainc(a, b, law_points(c, d)) for c, d in laws]
+        u = np.unique(np.clip(np.concatenate(cuts), 0, 1))
+        lo, hi = u[:-1], u[1:]
+        lo, hi = lo[hi > lo], hi[hi > lo]
+        mid, half = (lo + hi) / 2, (hi - lo) / 2
+        pts = (mid[:, None] + half[:, None] * nodes[None, :]).ravel()
+        wts = (half[:, None] * weights[None, :]).ravel()
+        t = sp.betaincinv(a, b, pts)  # scipy.stats.beta.ppf aborts the process (Boost) for some extreme laws
+        others = np.ones_like(t)
+        for j, (c, d) in enumerate(laws):
+            if j != i:
+                others = others * (betainc(c, d, t) if goal_high else betaincc(c, d, t))
+        best.append(float(np.sum(wts * others)))
+        expected += float(np.sum(wts * t * others))
+    return best, expected
+
+
+def bayes_rows(w):
+    for case in range(400):  # about a quarter is left out where the reference does not settle
+        g_high = 12 if case % 10 == 0 else 6
+        x, n = tally(2, g_high)
+        pa, pb = prior()
+        laws = [(pa + xi, pb + ni - xi) for xi, ni in zip(x, n)]
+        name = "sweep_bayes_%d" % case
+        goal = "high" if RNG.random() < 0.5 else "low"
+        b1, e1 = best_and_expected(laws, goal == "high")
+        b2, e2 = best_and_expected(laws, goal == "high", GL2_NODES, GL2_WEIGHTS)
+        if max(abs(p - q) for p, q in zip(b1, b2)) > 1e-11 or abs(e1 - e2) > 1e-11:
+            continue  # the reference did not settle: no row rather than a doubtful one
+        for i in range(len(laws)):
+            out(w, "bayes", name, x, n, "best|%s|%r|%r|%d" % (goal, pa, pb, i + 1), b2[i], QUAD)
+            mean = laws[i][0] / sum(laws[i])
+            loss = max(0.0, e2 - mean) if goal == "high" else max(0.0, mean - e2)
+            out(w, "bayes", name, x, n, "loss|%s|%r|%r|%d" % (goal, pa, pb, i + 1), loss, QUAD)
+        i, j = (int(v) for v in RNG.choice(len(laws), 2, replace=False))
+        ahead = best_and_expected([laws[i], laws[j]], True, GL2_NODES, GL2_WEIGHTS)[0][0]
+        out(w, "bayes", name, x, n, "ahead|%r|%r|%d|%d" % (pa, pb, i + 1, j + 1), ahead, QUAD)
+        lv = level()
+        a, b = laws[i]
+        for q, what in (((1 - lv) / 2, "low"), ((1 + lv) / 2, "high")):
+            root = scipy.optimize.brentq(lambda t: betainc(a, b, t) - q, 0, 1, xtol=1e-300, rtol=1e-15, maxiter=500)
+            out(w, "bayes", name, x, n, "central_%s|%r|%r|%d|%r" % (what, pa, pb, i + 1, lv), root,
+                SCIPY + " optimize.brentq on stats.beta.cdf")
+        rate = float(RNG.choice([RNG.uniform(0, 1), 10 ** RNG.uniform(-12, -1), 1 - 10 ** RNG.uniform(-12, -1)]))
+        above = betaincc(a, b, rate) if goal == "high" else betainc(a, b, rate)
+        out(w, "bayes", name, x, n, "above|%s|%r|%r|%d|%r" % (goal, pa, pb, i + 1, rate), above,
+            SCIPY + " stats.beta.cdf/sf")
+        m = int(10 ** RNG.uniform(0, 9))
+        k = int(RNG.integers(0, m + 1)) if RNG.random() < 0.5 else int(min(m, max(0, round(m * a / (a + b)))))
+        if k == 0:
+            nxt = 1.0
+        else:
+            pair = [(a, b), (float(k), float(m - k + 1))]
+            nxt = best_and_expected(pair, True, GL2_NODES, GL2_WEIGHTS)[0][0]
+            if m <= 2000:
+                direct = scipy.stats.betabinom.sf(k - 1, m, a, b)
+                if abs(direct - nxt) > 1e-10:
+                    continue
+        out(w, "bayes", name, x, n, "next|%r|%r|%d|%d|%d" % (pa, pb, i + 1, m, k), nxt,
+            QUAD + ", P(rate > Beta(k, m - k + 1)); " + SCIPY + " stats.betabinom.sf where m <= 2000")
+
+
+# ---- pairs ----
+
+ONE = {"wilson": "wilson", "clopper-pearson": "beta", "jeffreys": "jeffreys", "agresti-coull": "agresti_coull"}
+DIFF = {"newcombe": "newcomb", "agresti-caffo": "agresti-caffo", "wald": "wald"}
+ADJUST = {"holm": "holm", "hochberg": "simes-hochberg", "benjamini-hochberg": "fdr_bh", "bonferroni": "bonferroni",
+          "sidak": "sidak"}
+
+
+def pairs_rows(w):
+    for case in range(CASES):
+        x, n = tally(2, 8)
+        name = "sweep_pairs_%d" % case
+        lv = level()
+        i, j = (int(v) for v in RNG.choice(len(x), 2, replace=False))
+        if n[i] == 0 or n[j] == 0:
+            continue
+        for ours, theirs in ONE.items():
+            lo, hi = proportion_confint(x[i], n[i], alpha=1 - lv, method=theirs)
+            src = STATSMODELS + ' proportion_confint(method="%s")' % theirs
+            if ours == "jeffreys":
+                lo, hi = (0.0 if x[i] == 0 else lo), (1.0 if x[i] == n[i] else hi)
+                src += "; 0 at x = 0, 1 at x = n (Brown, Cai & DasGupta 2001)"
+            if ours in ("wilson", "agresti-coull"):
+                lo, hi = max(0.0, lo), min(1.0, hi)
+            out(w, "pairs", name, x, n, "one_low|%s|%d|%r" % (ours, i + 1, lv), lo, src)
+            out(w, "pairs", name, x, n, "one_high|%s|%d|%r" % (ours, i + 1, lv), hi, src)
+        for ours, theirs in DIFF.items():
+            lo, hi = confint_proportions_2indep(x[i], n[i], x[j], n[j], method=theirs, compare="diff", alpha=1 - lv)
+            src = STATSMODELS + ' confint_proportions_2indep(method="%s", compare="diff")' % theirs
+            if ours != "newcombe":
+                lo, hi = max(-1.0, lo), min(1.0, hi)
+            out(w, "pairs", name, x, n, "diff_low|%s|%d|%d|%r" % (ours, i + 1, j + 1, lv), lo, src)
+            out(w, "pairs", name, x, n, "diff_high|%s|%d|%d|%r" % (ours, i + 1, j + 1, lv), hi, src)
+        if case % 3 == 0 and max(n[i], n[j]) <= 10 ** 5:
+            lo, hi = mn_interval(x[i], n[i], x[j], n[j], lv)
+            src = "generate.py mn_interval (bisection, Miettinen & Nurminen 1985 with N/(N-1))"
+            out(w, "pairs", name, x, n, "diff_low|miettinen-nurminen|%d|%d|%r" % (i + 1, j + 1, lv), lo, src)
+            out(w, "pairs", name, x, n, "diff_high|miettinen-nurminen|%d|%d|%r" % (i + 1, j + 1, lv), hi, src)
+        # every pair's score p, adjusted over all pairs
+        pairs = [(a, b) for a in range(len(x)) for b in range(a + 1, len(x)) if n[a] > 0 and n[b] > 0]
+        raw = [pair_p_values(x[a], n[a], x[b], n[b])[0] for a, b in pairs]
+        if any(p is None for p in raw):
+            continue
+        adjust = list(ADJUST)[case % len(ADJUST)]
+        with np.errstate(divide="ignore"):
+            adjusted = multipletests(raw, method=ADJUST[adjust])[1]
+        a, b = pairs[case % len(pairs)]
+        k = pairs.index((a, b))
+        out(w, "pairs", name, x, n, "pair_p|none|%d|%d" % (a + 1, b + 1), raw[k],
+            SCIPY + " chi2_contingency(correction=False)")
+        out(w, "pairs", name, x, n, "pair_p|%s|%d|%d" % (adjust, a + 1, b + 1), adjusted[k],
+            STATSMODELS + ' multipletests(method="%s") over all pairs' % ADJUST[adjust])
+
+
+# ---- omnibus ----
+
+def omnibus_rows(w):
+    for case in range(CASES):
+        x, n = tally(2, 30)
+        name = "sweep_omnibus_%d" % case
+        tab = np.array([x, [b - a for a, b in zip(x, n)]])
+        if tab.sum(axis=1).min() == 0:
+            continue  # one shared rate of 0 or 1: every test gives p = 1 by definition, scipy refuses
+        x2, p, _, _ = chi2_contingency(tab, correction=False)
+        out(w, "omnibus", name, x, n, "pearson_stat", x2, SCIPY + " chi2_contingency(correction=False)")
+        out(w, "omnibus", name, x, n, "pearson_p", p, SCIPY + " chi2_contingency(correction=False)")
+        g2, pg, _, _ = chi2_contingency(tab, correction=False, lambda_="log-likelihood")
+        out(w, "omnibus", name, x, n, "lr_stat", g2, SCIPY + ' chi2_contingency(lambda_="log-likelihood")')
+        t = Table(tab.T, shift_zeros=False)
+        resid = t.standardized_resids[:, 0]
+        g = case % len(x)
+        out(w, "omnibus", name, x, n, "resid|%d" % (g + 1), resid[g], STATSMODELS + " Table.standardized_resids")
+        scores = np.arange(1, len(x) + 1)
+        z = t.test_ordinal_association(row_scores=scores, col_scores=np.array([1, 0])).zscore
+        out(w, "omnibus", name, x, n, "trend_z_conditional", z,
+            STATSMODELS + " Table.test_ordinal_association (conditional variance)")
+
+
+# ---- planning ----
+
+def demo_reference(rate, conf, failures):
+    if failures == 0:
+        with mpmath.workdps(50):
+            v = mpmath.log(1 - mpmath.mpf(conf)) / mpmath.log(mpmath.mpf(rate))
+            return int(mpmath.ceil(v - mpmath.mpf(10) ** -30))
+    lo, hi = failures + 1, failures + 1
+    while scipy.stats.binom.cdf(failures, hi, 1 - rate) > 1 - conf:
+        lo, hi = hi, hi * 2
+    while lo < hi:
+        mid = (lo + hi) // 2
+        if scipy.stats.binom.cdf(failures, mid, 1 - rate) <= 1 - conf:
+            hi = mid
+        else:
+            lo = mid + 1
+    return lo
+
+
+def width_reference(rate, half, lv, method):
+    ns = np.arange(1, 200001)
+    x = np.floor(rate * ns + 0.5)
+    lo, hi = proportion_confint(x, ns, alpha=1 - lv, method=ONE[method])
+    if method == "jeffreys":
+        lo = np.where(x == 0, 0.0, lo)
+        hi = np.where(x == ns, 1.0, hi)
+    if method in ("wilson", "agresti-coull"):
+        lo, hi = np.maximum(lo, 0.0), np.minimum(hi, 1.0)
+    ok = np.nonzero((hi - lo) / 2 <= half)[0]
+    return int(ns[ok[0]]) if len(ok) else None
+
+
+def power_reference(p1, p2, power, alpha):
+    with mpmath.workdps(50):
+        p1, p2, power, alpha = (mpmath.mpf(v) for v in (p1, p2, power, alpha))
+        za = -mpmath.sqrt(2) * mpmath.erfinv(2 * (alpha / 2) - 1)
+        zb = mpmath.sqrt(2) * mpmath.erfinv(2 * power - 1)
+        pbar = (p1 + p2) / 2
+        k = za * mpmath.sqrt(2 * pbar * (1 - pbar)) + zb * mpmath.sqrt(p1 * (1 - p1) + p2 * (1 - p2))
+        return int(mpmath.ceil(k * k / (p1 - p2) ** 2 - mpmath.mpf(10) ** -30))
+
+
+def planning_rows(w):
+    for case in range(CASES):
+        name = "sweep_plan_%d" % case
+        kind = case % 3
+        if kind == 0:
+            rate = float(round(1 - 10 ** RNG.uniform(-4, -0.3), 6))
+            conf = level()
+            failures = int(RNG.choice([0, 0, 1, 2, 5]))
+            n = demo_reference(rate, conf, failures)
+            if n <= 10 ** 9:
+                out(w, "planning", name, [], [], "demo|%r|%r|%d" % (rate, conf, failures), n,
+                    "mpmath %s (50 digits) success-run formula" % mpmath.__version__ if failures == 0 else
+                    SCIPY + " stats.binom.cdf, bisection over n")
+        elif kind == 1:
+            rate = float(round(RNG.choice([RNG.uniform(0.01, 0.99), 10 ** RNG.uniform(-3, -1)]), 4))
+            half = float(round(10 ** RNG.uniform(-2.3, -0.8), 4))
+            lv = float(RNG.choice([0.8, 0.9, 0.95, 0.99]))
+            method = list(ONE)[case % 4]
+            n = width_reference(rate, half, lv, method)
+            if n is not None:
+                out(w, "planning", name, [], [], "width|%r|%r|%r|%s" % (rate, half, lv, method), n,
+                    STATSMODELS + ' proportion_confint(method="%s") at every n up to 200,000' % ONE[method])
+        else:
+            p1 = float(round(RNG.uniform(0.001, 0.999), 4))
+            p2 = float(round(min(0.9999, max(0.0001, p1 + RNG.choice([-1, 1]) * 10 ** RNG.uniform(-2.5, -0.3))), 4))
+            if p1 == p2:
+                continue
+            power, alpha = float(RNG.choice([0.5, 0.8, 0.9, 0.95, 0.99])), float(RNG.choice([0.01, 0.05, 0.1]))
+            out(w, "planning", name, [], [], "power|%r|%r|%r|%r" % (p1, p2, power, alpha),
+                power_reference(p1, p2, power, alpha),
+                "mpmath %s (50 digits), Fleiss, Levin & Paik (2003) formula" % mpmath.__version__)
+
+
+def main():
+    # Laws far apart underflow to 0 in scipy's Boost calls: the warning is noise.
+    np.seterr(all="ignore")
+    warnings.filterwarnings("ignore", category=RuntimeWarning)
+    w = csv.writer(sys.stdout, lineterminator="\n")
+    w.writerow(["family", "case", "successes", "attempts", "quantity", "value", "source"])
+    for section in (bayes_rows, pairs_rows, omnibus_rows, planning_rows):
+        section(w)
+
+
+if __name__ == "__main__":
+    main()
