@@ -7,6 +7,7 @@
 #include <boost/math/special_functions/gamma.hpp>
 #include <cmath>
 #include <limits>
+#include <tuple>
 
 #include "detail/vector_quadrature.hpp"
 #include "tallyrates/errors.hpp"
@@ -156,38 +157,47 @@ std::vector<double> cuts_between(const std::vector<placed_law>& laws, double fro
     return cuts;
 }
 
-}  // namespace
-
-across_groups compare_all(std::span<const beta_law> input, goal g, reach how, bool with_expected) {
-    const std::size_t G = input.size();
-    // Where the integrals can be non-zero, in the original coordinate: for the
-    // highest, from the largest lower edge to the largest upper one.
+// The problem in the coordinate of the pass: the laws (mirrored when the
+// range lies nearer 1), which end is sought, and the range [from, to] where
+// the integrals can be non-zero.
+struct axis_problem {
     std::vector<placed_law> laws;
-    for (const auto& law : input) laws.push_back(place(law, how.tail, false));
-    const bool high = g == goal::high;
-    auto range_of = [&](bool want_high) {
-        double from = want_high ? 0.0 : 1.0, to = want_high ? 0.0 : 1.0;
-        for (const auto& l : laws) {
-            from = want_high ? std::max(from, l.low) : std::min(from, l.low);
-            to = want_high ? std::max(to, l.high()) : std::min(to, l.high());
-        }
-        return std::pair{from, to};
-    };
-    const auto [from0, to0] = range_of(high);
-    const bool mirrored = from0 + to0 > 1;
-    if (mirrored)
-        for (auto& l : laws) l = {l.b, l.a, l.high_gap, l.low};
-    const bool want_high = high != mirrored;
-    auto [from, to] = range_of(want_high);
-    const std::size_t width = G + (with_expected ? 1 : 0);
-    across_groups out;
-    out.best.assign(G, 0.0);
-    if (!(to > from)) to = from;
+    bool mirrored = false, want_high = true;
+    double from = 0, to = 0;
+};
 
-    std::vector<double> cuts = to > from ? cuts_between(laws, from, to) : std::vector<double>{};
-    end_maps maps;
-    double a_min = 1, b_min = 1;
+// For the highest, from the largest lower window edge to the largest upper
+// one (below it some other law is surely lower, above it every law is); for
+// the lowest, from the smallest lower edge to the smallest upper one.
+std::pair<double, double> range_of(const std::vector<placed_law>& laws, bool want_high) {
+    double from = want_high ? 0.0 : 1.0, to = from;
     for (const auto& l : laws) {
+        from = want_high ? std::max(from, l.low) : std::min(from, l.low);
+        to = want_high ? std::max(to, l.high()) : std::min(to, l.high());
+    }
+    return {from, std::max(from, to)};
+}
+
+axis_problem set_up(std::span<const beta_law> input, goal g, double tail) {
+    axis_problem p;
+    for (const auto& law : input) p.laws.push_back(place(law, tail, false));
+    const bool high = g == goal::high;
+    const auto [from, to] = range_of(p.laws, high);
+    p.mirrored = from + to > 1;
+    if (p.mirrored)
+        for (auto& l : p.laws) l = {l.b, l.a, l.high_gap, l.low};
+    p.want_high = high != p.mirrored;
+    std::tie(p.from, p.to) = range_of(p.laws, p.want_high);
+    return p;
+}
+
+// The pieces of [from, to]; an end piece next to an infinite density gets
+// the power substitution (its map and exponent in `maps`).
+std::vector<quadrature_piece> pieces_of(const axis_problem& p, end_maps& maps) {
+    if (!(p.to > p.from)) return {};
+    const auto cuts = cuts_between(p.laws, p.from, p.to);
+    double a_min = 1, b_min = 1;
+    for (const auto& l : p.laws) {
         a_min = std::min(a_min, l.a);
         b_min = std::min(b_min, l.b);
     }
@@ -206,73 +216,103 @@ across_groups compare_all(std::span<const beta_law> input, goal g, reach how, bo
             pieces.push_back({cuts[k], cuts[k + 1], linear});
         }
     }
+    return pieces;
+}
 
-    // Cost of one law's evaluation, in units of about 2 us: Boost's
-    // incomplete beta slows as the parameters grow (measured: 1.4 us at 10^3
-    // attempts, 5.8 at 10^6, 250 at 10^12, 1.9 ms at 10^15).
-    std::vector<double> cost(G);
-    for (std::size_t j = 0; j < G; ++j) cost[j] = std::max(1.0, std::pow((laws[j].a + laws[j].b) / 1e3, 0.26));
-    std::vector<double> log_f(G), log_c(G), prefix(G + 1);
-    double law_evaluations = 0;
-    auto integrand = [&](int map, double v, double* values) {
-        const axis_point p = point_at(map, v, maps);
-        if (!(p.jacobian > 0) || !(p.s > 0) || !(p.s_gap > 0) || !std::isfinite(p.jacobian)) {
-            std::fill(values, values + width, 0.0);
+// The G (+ 1) integrands at one node: f_k prod_{j != k} C_j for every group
+// k, and the expected best's integrand, all from one evaluation of each law
+// whose window holds the node.
+class node_values {
+public:
+    node_values(const axis_problem& p, const end_maps& maps, bool with_expected)
+        : p_(p), maps_(maps), with_expected_(with_expected), log_f_(p.laws.size()), log_c_(p.laws.size()),
+          prefix_(p.laws.size() + 1) {
+        // Cost of one law's evaluation, in units of about 2 us: Boost's
+        // incomplete beta slows as the parameters grow (measured: 1.4 us at
+        // 10^3 attempts, 5.8 at 10^6, 250 at 10^12, 1.9 ms at 10^15).
+        for (const auto& l : p.laws) cost_.push_back(std::max(1.0, std::pow((l.a + l.b) / 1e3, 0.26)));
+    }
+
+    void operator()(int map, double v, double* values) {
+        const std::size_t G = p_.laws.size();
+        const axis_point at = point_at(map, v, maps_);
+        if (!(at.jacobian > 0) || !(at.s > 0) || !(at.s_gap > 0) || !std::isfinite(at.jacobian)) {
+            std::fill(values, values + G + (with_expected_ ? 1 : 0), 0.0);
             return;
         }
-        for (std::size_t j = 0; j < G; ++j) {
-            const placed_law& l = laws[j];
-            if (p.s < l.low || p.s_gap < l.high_gap) {
-                // Outside the window: no density; the CDF is 0 below, 1 above.
-                const bool below = p.s < l.low;
-                log_f[j] = -HUGE_VAL;
-                log_c[j] = (below == want_high) ? -HUGE_VAL : 0.0;
-                continue;
-            }
-            law_evaluations += cost[j];
-            log_f[j] = log_density_at(l, p);
-            log_c[j] = log_cdf_at(l, p, want_high);
-        }
-        if (law_evaluations > max_law_evaluations)
+        for (std::size_t j = 0; j < G; ++j) evaluate(j, at);
+        if (work_ > max_law_evaluations)
             throw budget_exceeded("Comparing these " + std::to_string(G) + " groups needs more than " +
                                   format_number(max_law_evaluations) +
                                   " units of work, the cap of one call (about 2 s); groups of more than about "
                                   "10^12 attempts or many groups cost the most.");
         // Every group's product of the others without dividing: prefix and suffix sums in logs.
-        prefix[0] = 0;
-        for (std::size_t j = 0; j < G; ++j) prefix[j + 1] = prefix[j] + log_c[j];
+        prefix_[0] = 0;
+        for (std::size_t j = 0; j < G; ++j) prefix_[j + 1] = prefix_[j] + log_c_[j];
         double suffix = 0;
         for (std::size_t j = G; j-- > 0;) {
-            values[j] = std::isfinite(log_f[j]) ? std::exp(log_f[j] + prefix[j] + suffix) * p.jacobian : 0.0;
-            suffix += log_c[j];
+            values[j] = std::isfinite(log_f_[j]) ? std::exp(log_f_[j] + prefix_[j] + suffix) * at.jacobian : 0.0;
+            suffix += log_c_[j];
         }
-        if (with_expected) {
-            const double all = prefix[G];
-            values[G] = (want_high ? -std::expm1(all) : std::exp(all)) * p.jacobian;
+        if (with_expected_) values[G] = (p_.want_high ? -std::expm1(prefix_[G]) : std::exp(prefix_[G])) * at.jacobian;
+    }
+
+private:
+    void evaluate(std::size_t j, const axis_point& at) {
+        const placed_law& l = p_.laws[j];
+        if (at.s < l.low || at.s_gap < l.high_gap) {
+            // Outside the window: no density; the CDF is 0 below, 1 above.
+            log_f_[j] = -HUGE_VAL;
+            log_c_[j] = ((at.s < l.low) == p_.want_high) ? -HUGE_VAL : 0.0;
+            return;
         }
-    };
-    // Double precision places a node within eps * s of where it is meant to
-    // be: a law whose standard deviation is a small fraction of its position
-    // (10^15 attempts: 1e-8) sees its density jitter by eps * s / sd between
-    // neighbouring nodes, and no error estimate falls below that. The
-    // tolerance is raised to that floor, which stays below 1e-10 up to about
-    // 10^7 attempts per group.
+        work_ += cost_[j];
+        log_f_[j] = log_density_at(l, at);
+        log_c_[j] = log_cdf_at(l, at, p_.want_high);
+    }
+
+    const axis_problem& p_;
+    const end_maps& maps_;
+    bool with_expected_;
+    std::vector<double> cost_, log_f_, log_c_, prefix_;
+    double work_ = 0;
+};
+
+// Double precision places a node within eps * s of where it is meant to be:
+// a law whose standard deviation is a small fraction of its position (10^15
+// attempts: 1e-8) sees its density jitter by eps * s / sd between
+// neighbouring nodes, and no error estimate falls below that. The tolerance
+// is raised to that floor, which stays below 1e-10 up to about 10^7 attempts
+// per group.
+double rounding_floor(const axis_problem& p) {
     double floor = 0;
-    for (const auto& l : laws)
-        if (l.low <= to && l.high() >= from) floor = std::max(floor, 32 * std::numeric_limits<double>::epsilon() * to / l.sd());
+    for (const auto& l : p.laws)
+        if (l.low <= p.to && l.high() >= p.from)
+            floor = std::max(floor, 32 * std::numeric_limits<double>::epsilon() * p.to / l.sd());
+    return floor;
+}
+
+}  // namespace
+
+across_groups compare_all(std::span<const beta_law> input, goal g, reach how, bool with_expected) {
+    const std::size_t G = input.size(), width = G + (with_expected ? 1 : 0);
+    const axis_problem p = set_up(input, g, how.tail);
+    end_maps maps;
+    const auto pieces = pieces_of(p, maps);
+    const double floor = rounding_floor(p);
     vector_tolerance tolerance{std::max(how.relative, floor), std::vector<double>(width, how.absolute)};
-    if (with_expected) tolerance.absolute[G] = std::max(1e-13, floor * to);
-    const auto integrals =
-        pieces.empty() ? vector_integrals{std::vector<double>(width, 0.0), std::vector<double>(width, 0.0), 0}
-                       : integrate_pieces(integrand, pieces, width, tolerance);
-    for (std::size_t k = 0; k < G; ++k) out.best[k] = std::clamp(integrals.value[k], 0.0, 1.0);
+    if (with_expected) tolerance.absolute[G] = std::max(1e-13, floor * p.to);
+    const auto integrals = pieces.empty() ? vector_integrals{std::vector<double>(width, 0.0), {}, 0}
+                                          : integrate_pieces(node_values(p, maps, with_expected), pieces, width, tolerance);
+    across_groups out;
+    for (std::size_t k = 0; k < G; ++k) out.best.push_back(std::clamp(integrals.value[k], 0.0, 1.0));
     if (with_expected) {
         // Below `from` the integrand of the expected best is 1 (some law is
         // surely below / every law is surely above), beyond `to` it is 0.
-        const double expected = from + integrals.value[G];
-        out.expected_best = mirrored ? 1 - expected : expected;
-        for (const auto& l : laws)
-            out.loss.push_back(std::max(0.0, want_high ? expected - l.mean() : l.mean() - expected));
+        const double expected = p.from + integrals.value[G];
+        out.expected_best = p.mirrored ? 1 - expected : expected;
+        for (const auto& l : p.laws)
+            out.loss.push_back(std::max(0.0, p.want_high ? expected - l.mean() : l.mean() - expected));
     }
     return out;
 }

@@ -90,11 +90,7 @@ std::size_t count_cases(const std::vector<sweep_row>& rows) {
 
 }  // namespace
 
-// Disabled for now: on about 1 % of the rows the engine and this reference
-// differ by 1e-9 to 1e-6 (laws of 10^6 and more attempts; the reference's
-// Cephes quantile there is itself doubtful, see sweep.py). Run with
-// --gtest_also_run_disabled_tests; to be settled before it joins the suite.
-TEST(Sweep, DISABLED_BayesAgainstQuadratureOutsideTheEngine) {
+TEST(Sweep, BayesAgainstQuadratureOutsideTheEngine) {
     const auto rows = sweep_rows("bayes");
     std::map<std::string, int> checked;
     for (const auto& r : rows) {

@@ -46,55 +46,58 @@ struct vector_tolerance {
 inline constexpr std::size_t max_quadrature_pieces = 6000;
 inline constexpr int max_quadrature_rounds = 60;
 
+// One piece's Kronrod (15-point) and Gauss (7-point) sums for every
+// component, in the layout of Boost's own non-adaptive rule (index 0 is the
+// centre, even indices are also Gauss nodes); the error estimate |K - G|,
+// never below the rounding of the sum.
+template <class F>
+void kronrod_piece(F& f, const quadrature_piece& p, std::size_t width, double* value, double* error,
+                   std::vector<double>& node, std::vector<double>& gauss_sum, std::size_t& evaluations) {
+    using kronrod = boost::math::quadrature::gauss_kronrod<double, 15>;
+    const auto& x = kronrod::abscissa();
+    const auto& wk = kronrod::weights();
+    const auto& wg = boost::math::quadrature::gauss<double, 7>::weights();
+    const double centre = (p.low + p.high) / 2, half = (p.high - p.low) / 2;
+    std::fill(value, value + width, 0.0);
+    std::fill(gauss_sum.begin(), gauss_sum.end(), 0.0);
+    for (std::size_t k = 0; k < x.size(); ++k)
+        for (const double side : {1.0, -1.0}) {
+            if (k == 0 && side < 0) break;  // the centre once
+            f(p.map, centre + side * half * x[k], node.data());
+            ++evaluations;
+            for (std::size_t c = 0; c < width; ++c) {
+                value[c] += wk[k] * node[c];
+                if (k % 2 == 0) gauss_sum[c] += wg[k / 2] * node[c];
+            }
+        }
+    for (std::size_t c = 0; c < width; ++c) {
+        error[c] = std::max(half * std::fabs(value[c] - gauss_sum[c]), 4e-16 * std::fabs(half * value[c]));
+        value[c] *= half;
+    }
+}
+
 // f(map, v, out) writes the `width` integrands at the point v of a piece with
-// that map into out[0 .. width).
+// that map into out[0 .. width). Each round sums the pieces; a component
+// still above its tolerance shares that tolerance out evenly over the
+// pieces, and every piece over some open component's share is halved.
 template <class F>
 vector_integrals integrate_pieces(F f, std::vector<quadrature_piece> pieces, std::size_t width,
                                   const vector_tolerance& tolerance) {
-    using kronrod = boost::math::quadrature::gauss_kronrod<double, 15>;
-    using gauss = boost::math::quadrature::gauss<double, 7>;
-    const auto& x = kronrod::abscissa();
-    const auto& wk = kronrod::weights();
-    const auto& wg = gauss::weights();
     vector_integrals out;
-    std::vector<double> node(width), k_sum(width), g_sum(width);
-    // One piece: Kronrod and Gauss sums, in the layout of Boost's own
-    // non-adaptive rule (index 0 is the centre, even indices are Gauss nodes).
+    std::vector<double> node(width), gauss_sum(width), values(pieces.size() * width), errors(pieces.size() * width);
     auto rule = [&](const quadrature_piece& p, double* value, double* error) {
-        const double centre = (p.low + p.high) / 2, half = (p.high - p.low) / 2;
-        std::fill(k_sum.begin(), k_sum.end(), 0.0);
-        std::fill(g_sum.begin(), g_sum.end(), 0.0);
-        for (std::size_t k = 0; k < x.size(); ++k) {
-            for (const double side : {1.0, -1.0}) {
-                if (k == 0 && side < 0) break;
-                f(p.map, centre + side * half * x[k], node.data());
-                ++out.evaluations;
-                for (std::size_t c = 0; c < width; ++c) {
-                    k_sum[c] += wk[k] * node[c];
-                    if (k % 2 == 0) g_sum[c] += wg[k / 2] * node[c];
-                }
-            }
-        }
-        for (std::size_t c = 0; c < width; ++c) {
-            value[c] = half * k_sum[c];
-            error[c] = std::max(half * std::fabs(k_sum[c] - g_sum[c]), 4e-16 * std::fabs(value[c]));
-        }
+        kronrod_piece(f, p, width, value, error, node, gauss_sum, out.evaluations);
     };
-    std::vector<double> values(pieces.size() * width), errors(pieces.size() * width);
     for (std::size_t p = 0; p < pieces.size(); ++p) rule(pieces[p], &values[p * width], &errors[p * width]);
-    out.value.assign(width, 0.0);
-    out.error.assign(width, 0.0);
     for (int round = 0; round < max_quadrature_rounds; ++round) {
-        std::fill(out.value.begin(), out.value.end(), 0.0);
-        std::fill(out.error.begin(), out.error.end(), 0.0);
+        out.value.assign(width, 0.0);
+        out.error.assign(width, 0.0);
         for (std::size_t p = 0; p < pieces.size(); ++p)
             for (std::size_t c = 0; c < width; ++c) {
                 out.value[c] += values[p * width + c];
                 out.error[c] += errors[p * width + c];
             }
-        // A component still open gets a budget per piece: its tolerance
-        // shared out evenly; a piece over any open component's share is cut.
-        std::vector<double> share(width, -1.0);
+        std::vector<double> share(width, -1.0);  // negative: the component is settled
         bool open = false;
         for (std::size_t c = 0; c < width; ++c) {
             const double allowed = std::max(tolerance.absolute[c], tolerance.relative * std::fabs(out.value[c]));
@@ -106,25 +109,25 @@ vector_integrals integrate_pieces(F f, std::vector<quadrature_piece> pieces, std
         if (!open) return out;
         std::vector<quadrature_piece> next;
         std::vector<double> next_values, next_errors;
+        auto keep = [&](const quadrature_piece& piece, const double* value, const double* error) {
+            next.push_back(piece);
+            next_values.insert(next_values.end(), value, value + width);
+            next_errors.insert(next_errors.end(), error, error + width);
+        };
         for (std::size_t p = 0; p < pieces.size(); ++p) {
             bool cut = false;
             for (std::size_t c = 0; c < width && !cut; ++c) cut = share[c] >= 0 && errors[p * width + c] > share[c];
             const double mid = (pieces[p].low + pieces[p].high) / 2;
             // A piece that can no longer be halved in double precision stays.
-            if (cut && mid > pieces[p].low && mid < pieces[p].high) {
-                for (const auto& half : {quadrature_piece{pieces[p].low, mid, pieces[p].map},
-                                         quadrature_piece{mid, pieces[p].high, pieces[p].map}}) {
-                    next.push_back(half);
-                    next_values.resize(next.size() * width);
-                    next_errors.resize(next.size() * width);
-                    rule(half, &next_values[(next.size() - 1) * width], &next_errors[(next.size() - 1) * width]);
-                }
-            } else {
-                next.push_back(pieces[p]);
-                next_values.insert(next_values.end(), values.begin() + static_cast<std::ptrdiff_t>(p * width),
-                                   values.begin() + static_cast<std::ptrdiff_t>((p + 1) * width));
-                next_errors.insert(next_errors.end(), errors.begin() + static_cast<std::ptrdiff_t>(p * width),
-                                   errors.begin() + static_cast<std::ptrdiff_t>((p + 1) * width));
+            if (!cut || !(mid > pieces[p].low && mid < pieces[p].high)) {
+                keep(pieces[p], &values[p * width], &errors[p * width]);
+                continue;
+            }
+            std::vector<double> half_value(width), half_error(width);
+            for (const auto& half : {quadrature_piece{pieces[p].low, mid, pieces[p].map},
+                                     quadrature_piece{mid, pieces[p].high, pieces[p].map}}) {
+                rule(half, half_value.data(), half_error.data());
+                keep(half, half_value.data(), half_error.data());
             }
             if (next.size() > max_quadrature_pieces)
                 throw no_convergence("A posterior probability's integral needed more than " +
