@@ -22,7 +22,8 @@ References (each row names its own):
       Gauss-Legendre rule (numpy nodes, 20 a piece) on each half of the axis
       in the distance to its end, pieces cut at every law's mean +- 0.25 to 40
       sd and, for a law with a parameter below 1, at every decade next to
-      that end, a power substitution on the end piece; scipy.stats.beta's
+      that end, a power substitution on the end piece where the smallest
+      parameter there is not a whole number; scipy.stats.beta's
       pdf, cdf and sf (Boost.Math inside scipy; 50-digit mpmath for a
       density's constant where Boost overflows). Each tally is recomputed
       with 40 nodes a piece and left out if the two differ by more than 1e-11
@@ -194,8 +195,8 @@ def best_and_expected(laws, goal_high, nodes=GL_NODES, weights=GL_WEIGHTS):
         mid, half = (lo + hi) / 2, (hi - lo) / 2
         v = (mid[:, None] + half[:, None] * nodes[None, :])
         wts = (half[:, None] * weights[None, :])
-        if p_min < 1:  # the end piece [0, c] by the power substitution
-            c, power = hi[0], 1 / p_min
+        if p_min != math.floor(p_min):  # the end piece [0, c] by the power substitution
+            c, power = hi[0], math.ceil(p_min) / p_min
             w01 = (nodes + 1) / 2
             v[0] = c * w01 ** power
             wts[0] = weights / 2 * c * power * w01 ** (power - 1)
