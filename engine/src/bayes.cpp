@@ -189,20 +189,23 @@ double ahead_direct(const beta_law& x, const beta_law& y, const detail::reach& h
 // measured at 1.06 ms).
 constexpr double max_sum_terms = 2000000;
 
-// log B(a, c) - log B(a, d), for c > d. Log-gamma differences lose about
-// eps * c log c (3e-10 at c = 10^6, which the prediction of RATES.POST.NEXT
-// missed its 1e-10 target by). Instead, from two Beta densities at one point
-// x, each computed by Boost.Math to full relative accuracy:
+// log B(a, c) - log B(a, d), for c > d, or nothing where it cannot be had
+// to about 1e-12. Log-gamma differences lose about eps * c log c (3e-10 at
+// c = 10^6, which the prediction of RATES.POST.NEXT missed its 1e-10 target
+// by). Instead, from two Beta densities at one point x, each computed by
+// Boost.Math to full relative accuracy:
 //   f(a, d; x) / f(a, c; x) = (1 - x)^(c - d) B(a, c) / B(a, d),
-// with x between the two laws' means so that neither density underflows;
-// log-gamma only where one does.
-double log_beta_ratio(double a, double c, double d) {
+// with x between the two laws' means. Where the laws lie so far apart that
+// one density underflows at every such x, log-gamma serves only while its
+// values stay small (a + c below 10^4: an error of about 1e-12).
+std::optional<double> log_beta_ratio(double a, double c, double d) {
     const double x = a / (a + (c + d) / 2);
     const double f_d = boost::math::ibeta_derivative(a, d, x), f_c = boost::math::ibeta_derivative(a, c, x);
     if (f_d > std::numeric_limits<double>::min() && f_c > std::numeric_limits<double>::min() &&
         std::isfinite(f_d) && std::isfinite(f_c))
         return std::log(f_d) - std::log(f_c) + (c - d) * std::log1p(-x);
-    return log_beta(a, c) - log_beta(a, d);
+    if (a + c < 1e4) return log_beta(a, c) - log_beta(a, d);
+    return std::nullopt;
 }
 
 bool whole_and_small(double a) { return a == std::floor(a) && a <= max_sum_terms; }
@@ -215,10 +218,12 @@ bool whole_and_small(double a) { return a == std::floor(a) && a <= max_sum_terms
 // the one before by t_{i+1} / t_i = (a2 + i)(b1 + i) / ((a2 + b1 + b2 + i)(1 + i)).
 // The first term B(a2, b1 + b2) / B(a2, b2) is taken in logs and the sum kept
 // to scale. Past their peak the terms fall for good: the sum stops when they
-// no longer count.
-double ahead_sum(const beta_law& x, const beta_law& y) {
+// no longer count. Nothing where that first term cannot be had accurately.
+std::optional<double> ahead_sum(const beta_law& x, const beta_law& y) {
     const double a1 = x.a, b1 = x.b, a2 = y.a, b2 = y.b;
-    double log_scale = log_beta_ratio(a2, b1 + b2, b2);
+    const auto first = log_beta_ratio(a2, b1 + b2, b2);
+    if (!first) return std::nullopt;
+    double log_scale = *first;
     double term = 1.0, sum = 0.0;
     for (double i = 0; i < a1; ++i) {
         sum += term;
@@ -237,14 +242,16 @@ double ahead_sum(const beta_law& x, const beta_law& y) {
 // P(X > Y) on the side that is the smaller probability (the law with the
 // lower mean is the one less likely to be ahead), so small answers keep their
 // relative accuracy: the finite sum where a parameter is a whole number of
-// modest size, else the integral. The sum runs over X's first parameter, or,
+// modest size (and its first term to be had accurately), else the integral. The sum runs over X's first parameter, or,
 // mirrored (X > Y exactly when 1 - Y > 1 - X, and 1 - Y ~ Beta(b2, a2)), over
 // Y's second one: the fewer terms wins, so a line with 10^6 attempts and few
 // failures costs as many terms as it has failures.
 double ahead_small_side(const beta_law& x, const beta_law& y, const detail::reach& how) {
     const bool direct = whole_and_small(x.a), mirrored = whole_and_small(y.b);
-    if (mirrored && (!direct || y.b < x.a)) return ahead_sum({y.b, y.a}, {x.b, x.a});
-    return direct ? ahead_sum(x, y) : ahead_direct(x, y, how);
+    std::optional<double> sum;
+    if (mirrored && (!direct || y.b < x.a)) sum = ahead_sum({y.b, y.a}, {x.b, x.a});
+    else if (direct) sum = ahead_sum(x, y);
+    return sum ? *sum : ahead_direct(x, y, how);
 }
 
 double ahead_to(const beta_law& x, const beta_law& y, const detail::reach& how) {
