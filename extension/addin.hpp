@@ -14,6 +14,7 @@
 #include <org/tallyrates/sheet/XRates.hpp>
 
 #include "convert.hpp"
+#include "tallyrates/bayes.hpp"
 #include "tallyrates/omnibus.hpp"
 #include "tallyrates/pairwise.hpp"
 
@@ -124,6 +125,7 @@ private:
     // Analyses already made, keyed by their exact inputs (thread-safe).
     omnibus::result_cache cache_{64};
     pairwise::p_cache pairs_cache_{64};
+    bayes::across_cache across_cache_{64};
 };
 
 }  // namespace tallyrates::uno

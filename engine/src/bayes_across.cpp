@@ -122,7 +122,7 @@ struct breakpoint {
 // The pieces between `from` and `to`, cut at every law's scale; points closer
 // than half the finer scale of two neighbours are merged.
 std::vector<double> cuts_between(const std::vector<placed_law>& laws, double from, double to) {
-    static constexpr double sds[] = {0, 1, -1, 2, -2, 3, -3, 4, -4, 6, -6, 8, -8, 12, -12, 16, -16};
+    static constexpr double sds[] = {0, 2, -2, 5, -5, 10, -10};
     std::vector<breakpoint> points;
     for (const auto& law : laws) {
         const double m = law.mean(), s = law.sd();
@@ -224,8 +224,8 @@ std::vector<quadrature_piece> pieces_of(const axis_problem& p, end_maps& maps) {
 // whose window holds the node.
 class node_values {
 public:
-    node_values(const axis_problem& p, const end_maps& maps, bool with_expected)
-        : p_(p), maps_(maps), with_expected_(with_expected), log_f_(p.laws.size()), log_c_(p.laws.size()),
+    node_values(const axis_problem& p, const end_maps& maps, answers what)
+        : p_(p), maps_(maps), all_(what == answers::all), log_f_(p.laws.size()), log_c_(p.laws.size()),
           prefix_(p.laws.size() + 1) {
         // Cost of one law's evaluation, in units of about 2 us: Boost's
         // incomplete beta slows as the parameters grow (measured: 1.4 us at
@@ -237,7 +237,7 @@ public:
         const std::size_t G = p_.laws.size();
         const axis_point at = point_at(map, v, maps_);
         if (!(at.jacobian > 0) || !(at.s > 0) || !(at.s_gap > 0) || !std::isfinite(at.jacobian)) {
-            std::fill(values, values + G + (with_expected_ ? 1 : 0), 0.0);
+            std::fill(values, values + (all_ ? G + 1 : 1), 0.0);
             return;
         }
         for (std::size_t j = 0; j < G; ++j) evaluate(j, at);
@@ -246,6 +246,12 @@ public:
                                   format_number(max_law_evaluations) +
                                   " units of work, the cap of one call (about 2 s); groups of more than about "
                                   "10^12 attempts or many groups cost the most.");
+        if (!all_) {  // the first group's P(best) alone
+            double others = 0;
+            for (std::size_t j = 1; j < G; ++j) others += log_c_[j];
+            values[0] = std::isfinite(log_f_[0]) ? std::exp(log_f_[0] + others) * at.jacobian : 0.0;
+            return;
+        }
         // Every group's product of the others without dividing: prefix and suffix sums in logs.
         prefix_[0] = 0;
         for (std::size_t j = 0; j < G; ++j) prefix_[j + 1] = prefix_[j] + log_c_[j];
@@ -254,7 +260,7 @@ public:
             values[j] = std::isfinite(log_f_[j]) ? std::exp(log_f_[j] + prefix_[j] + suffix) * at.jacobian : 0.0;
             suffix += log_c_[j];
         }
-        if (with_expected_) values[G] = (p_.want_high ? -std::expm1(prefix_[G]) : std::exp(prefix_[G])) * at.jacobian;
+        if (all_) values[G] = (p_.want_high ? -std::expm1(prefix_[G]) : std::exp(prefix_[G])) * at.jacobian;
     }
 
 private:
@@ -267,13 +273,14 @@ private:
             return;
         }
         work_ += cost_[j];
-        log_f_[j] = log_density_at(l, at);
+        // Densities only of the groups whose P(best) is wanted (half the work for P(ahead)).
+        log_f_[j] = all_ || j == 0 ? log_density_at(l, at) : -HUGE_VAL;
         log_c_[j] = log_cdf_at(l, at, p_.want_high);
     }
 
     const axis_problem& p_;
     const end_maps& maps_;
-    bool with_expected_;
+    bool all_;
     std::vector<double> cost_, log_f_, log_c_, prefix_;
     double work_ = 0;
 };
@@ -294,19 +301,23 @@ double rounding_floor(const axis_problem& p) {
 
 }  // namespace
 
-across_groups compare_all(std::span<const beta_law> input, goal g, reach how, bool with_expected) {
-    const std::size_t G = input.size(), width = G + (with_expected ? 1 : 0);
+across_groups compare_all(std::span<const beta_law> input, goal g, reach how, answers what) {
+    const bool all = what == answers::all;
+    const std::size_t G = input.size(), width = all ? G + 1 : 1;
     const axis_problem p = set_up(input, g, how.tail);
     end_maps maps;
     const auto pieces = pieces_of(p, maps);
     const double floor = rounding_floor(p);
-    vector_tolerance tolerance{std::max(how.relative, floor), std::vector<double>(width, how.absolute)};
-    if (with_expected) tolerance.absolute[G] = std::max(1e-13, floor * p.to);
+    vector_tolerance tolerance{std::max(how.relative, floor), std::vector<double>(width, how.absolute),
+                               std::max(how.small_relative, floor), 1e-3};
+    if (all) tolerance.absolute[G] = std::max(1e-13, floor * p.to);
     const auto integrals = pieces.empty() ? vector_integrals{std::vector<double>(width, 0.0), {}, 0}
-                                          : integrate_pieces(node_values(p, maps, with_expected), pieces, width, tolerance);
+                                          : integrate_pieces(node_values(p, maps, what), pieces, width, tolerance);
     across_groups out;
-    for (std::size_t k = 0; k < G; ++k) out.best.push_back(std::clamp(integrals.value[k], 0.0, 1.0));
-    if (with_expected) {
+    for (std::size_t k = 0; k < G; ++k)
+        out.best.push_back(all || k == 0 ? std::clamp(integrals.value[k], 0.0, 1.0)
+                                         : std::numeric_limits<double>::quiet_NaN());
+    if (all) {
         // Below `from` the integrand of the expected best is 1 (some law is
         // surely below / every law is surely above), beyond `to` it is 0.
         const double expected = p.from + integrals.value[G];

@@ -12,8 +12,8 @@
 // What makes it trustworthy for laws of very different widths (a pilot of 5
 // beside a line of 10^4, where a single adaptive rule over one group's window
 // misses the other's narrow step and answered 1 instead of 0.033):
-// - the pieces are cut at every law's scale: its mean +- 1, 2, 3, 4, 6, 8, 12,
-//   16 standard deviations and its window, where the window holds all but
+// - the pieces are cut at every law's scale: its mean +- 2, 5, 10 standard
+//   deviations and its window, where the window holds all but
 //   `tail` of the mass (quantiles from Boost's inverse incomplete beta);
 //   every feature of every integrand then spans several nodes of some piece;
 // - the integrals run only where they can be non-zero: for goal high from
@@ -39,15 +39,17 @@ namespace tallyrates::bayes::detail {
 
 // How far an integral reaches: the window's tail and the tolerances.
 struct reach {
-    double tail;      // mass left outside each law's window
-    double relative;  // relative tolerance of every integral
-    double absolute;  // below this an integral needs no relative digits
+    double tail;            // mass left outside each law's window
+    double relative;        // relative tolerance of every integral
+    double absolute;        // below this an integral needs no relative digits
+    double small_relative;  // relative tolerance of a probability below 1e-3
 };
-// Probabilities that may be tiny: windows at 1e-100, relative 1e-10.
-inline constexpr reach for_probability{1e-100, 1e-10, 1e-300};
+// Probabilities that may be tiny: windows at 1e-100, relative 1e-10, and
+// 1e-9 below 1e-3 (the promise there is 1e-8 relative: the reference rows).
+inline constexpr reach for_probability{1e-100, 1e-10, 1e-300, 1e-9};
 // A probability compared with a confidence (RATES.PLAN.AHEAD): 1e-16 cuts
 // less than 2e-16, and 1e-9 absolute is plenty.
-inline constexpr reach for_comparison{1e-16, 1e-9, 1e-12};
+inline constexpr reach for_comparison{1e-16, 1e-9, 1e-12, 1e-9};
 
 // A point below which Beta(a, b) holds at most `tail` of its mass, as a
 // distance from 0 (exact however close to 0): Boost's inverse, with a
@@ -56,15 +58,12 @@ inline constexpr reach for_comparison{1e-16, 1e-9, 1e-12};
 // 10^5 (wider than the quantile, never narrower).
 double lower_tail_point(double a, double b, double tail);
 
-struct across_groups {
-    std::vector<double> best;  // P(group k has the best rate)
-    std::vector<double> loss;  // E[best rate] - E[rate_k] (mirrored for goal low), >= 0
-    double expected_best = 0;  // E[max] for goal high, E[min] for goal low
-};
+// Which answers a call needs to its tolerance: every group's P(best) and the
+// expected best (RATES.POST.BEST, .LOSS, .TABLE), or the first group's P(best)
+// alone (P(ahead) of two laws; the other answers are then NaN).
+enum class answers { all, first_best };
 
-// Every group's answers at once. `with_expected` false skips the expected
-// best rate (and the losses), for a probability alone.
-across_groups compare_all(std::span<const beta_law> laws, goal g, reach how, bool with_expected = true);
+across_groups compare_all(std::span<const beta_law> laws, goal g, reach how, answers what = answers::all);
 
 // Work cap of one pass, in law evaluations at quadrature nodes weighted by
 // their cost (a unit is about 2 us, so the cap is about 2 s): past it,

@@ -127,7 +127,8 @@ double rates::postBest(const caller& document, const cells& successes, const cel
                        const Any& goal, const Any& prior_a, const Any& prior_b) {
     return guarded([&] {
         const auto c = convert::counts_of(document, successes, attempts);
-        return finite(bayes::best(bayes::posteriors(c, prior_of(prior_a, prior_b)), index_of(c, i), goal_of(goal)));
+        return finite(
+            bayes::best(bayes::posteriors(c, prior_of(prior_a, prior_b)), index_of(c, i), goal_of(goal), &across_cache_));
     });
 }
 
@@ -135,7 +136,8 @@ double rates::postLoss(const caller& document, const cells& successes, const cel
                        const Any& goal, const Any& prior_a, const Any& prior_b) {
     return guarded([&] {
         const auto c = convert::counts_of(document, successes, attempts);
-        return finite(bayes::loss(bayes::posteriors(c, prior_of(prior_a, prior_b)), index_of(c, i), goal_of(goal)));
+        return finite(
+            bayes::loss(bayes::posteriors(c, prior_of(prior_a, prior_b)), index_of(c, i), goal_of(goal), &across_cache_));
     });
 }
 
@@ -178,7 +180,7 @@ array rates::postTable(const caller& document, const cells& successes, const cel
         std::vector<std::vector<Any>> rows{{Any(ou("group")), Any(ou("expected rate")), Any(ou("low (" + pct + ")")),
                                             Any(ou("high (" + pct + ")")), Any(ou("P(best)")),
                                             Any(ou("expected loss"))}};
-        for (const auto& r : bayes::summary(c, lv, goal_of(goal), prior_of(prior_a, prior_b))) {
+        for (const auto& r : bayes::summary(c, lv, goal_of(goal), prior_of(prior_a, prior_b), &across_cache_)) {
             const std::string label = c.label_of(r.position);
             rows.push_back({label.empty() ? Any(static_cast<double>(r.position)) : Any(ou(label)), Any(finite(r.mean)),
                             Any(finite(r.bounds.low)), Any(finite(r.bounds.high)), Any(finite(r.best)),

@@ -55,6 +55,44 @@ BENCHMARK(BM_best_all_12)->Arg(300)->Unit(benchmark::kMillisecond);
 BENCHMARK(BM_loss_one_of_12)->Arg(300)->Arg(10000)->Unit(benchmark::kMillisecond);
 BENCHMARK(BM_order_12)->Arg(300)->Arg(10000)->Unit(benchmark::kMillisecond);
 
+// Issue 18: groups of very different sizes (a pilot of 5 beside lines of 300
+// to 10^4), 200 groups of 300 (the cap of BEST and LOSS), 30 with Jeffreys'
+// prior (the cap of TABLE), and a prediction over 10^9 further attempts.
+void BM_best_pilot_beside_lines(benchmark::State& state) {
+    const std::vector<bayes::beta_law> laws{{5, 1}, {20, 3}, {45, 6}, {90, 11}, {150, 20}, {280, 21}, {9501, 501}};
+    for (auto _ : state) benchmark::DoNotOptimize(bayes::best(laws, 0, bayes::goal::high));
+}
+std::vector<bayes::beta_law> many(int groups, double n, double prior) {
+    std::vector<bayes::beta_law> laws;
+    for (int g = 0; g < groups; ++g) {
+        const double x = std::floor(n * (0.85 + 0.10 * g / groups));
+        laws.push_back({prior + x, prior + n - x});
+    }
+    return laws;
+}
+void BM_best_200(benchmark::State& state) {
+    const auto laws = many(200, 300, state.range(0) == 1 ? 1.0 : 0.5);
+    for (auto _ : state) benchmark::DoNotOptimize(bayes::best(laws, 100, bayes::goal::high));
+}
+void BM_loss_200(benchmark::State& state) {
+    const auto laws = many(200, 300, state.range(0) == 1 ? 1.0 : 0.5);
+    for (auto _ : state) benchmark::DoNotOptimize(bayes::loss(laws, 100, bayes::goal::high));
+}
+void BM_best_30(benchmark::State& state) {
+    const auto laws = many(30, 300, state.range(0) == 1 ? 1.0 : 0.5);
+    for (auto _ : state) benchmark::DoNotOptimize(bayes::loss(laws, 10, bayes::goal::high));
+}
+void BM_next_1e9(benchmark::State& state) {
+    const bayes::beta_law law{state.range(0) == 1 ? 15.0 : 14.5, state.range(0) == 1 ? 1.0 : 0.5};
+    for (auto _ : state) benchmark::DoNotOptimize(bayes::next_at_least(law, 1000000000, 999999990));
+}
+// Arg 1: the flat prior; 2: Jeffreys' prior.
+BENCHMARK(BM_best_pilot_beside_lines)->Unit(benchmark::kMillisecond);
+BENCHMARK(BM_best_200)->Arg(1)->Arg(2)->Unit(benchmark::kMillisecond);
+BENCHMARK(BM_loss_200)->Arg(1)->Arg(2)->Unit(benchmark::kMillisecond);
+BENCHMARK(BM_best_30)->Arg(1)->Arg(2)->Unit(benchmark::kMillisecond);
+BENCHMARK(BM_next_1e9)->Arg(1)->Arg(2)->Unit(benchmark::kMicrosecond);
+
 void BM_credible_hpd(benchmark::State& state) {
     const bayes::beta_law law{287, 15};
     for (auto _ : state) benchmark::DoNotOptimize(bayes::credible(law, 0.95, bayes::kind::hpd));

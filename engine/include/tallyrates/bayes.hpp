@@ -42,6 +42,7 @@
 #include <span>
 #include <vector>
 
+#include "tallyrates/cache.hpp"
 #include "tallyrates/counts.hpp"
 #include "tallyrates/one_rate.hpp"
 
@@ -92,20 +93,32 @@ double ahead_absolute(const beta_law& x, const beta_law& y);
 // a bracketing root search (TOMS 748).
 interval difference(const beta_law& x, const beta_law& y, double level);
 // Caps on the groups of one call (budget_exceeded, Err:523, beyond them),
-// measured to keep each call within about 2 s on the 2026-12-02 machine:
-// BEST and LOSS integrate products over every group (200 groups: 0.16 and
-// 0.64 s, 0.44 and 1.6 s with Jeffreys' prior); ORDER fills G x G cells (100
-// groups 13 ms with whole priors; 40 otherwise, where each cell is an
-// integral of about 1 ms); TABLE is G rows of BEST (30 groups: about 1.7 s
-// with Jeffreys' prior); CURVE draws points x G densities.
+// measured to keep each call within about 2 s: BEST and LOSS integrate
+// products over every group (one pass for all of them; README, Speed, for
+// the figures); ORDER fills G x G cells (100 groups with whole priors; 40
+// otherwise, where each cell may be an integral); TABLE is the same pass
+// plus G credible intervals; CURVE draws points x G densities.
 inline constexpr std::size_t max_groups_best = 200, max_groups_order = 100, max_groups_order_integrals = 40,
                              max_groups_table = 30;
 inline constexpr double max_curve_values = 2e6;
 
+// Every group's chance of being the best and expected loss, from one pass
+// over the rate axis (src/bayes_across.hpp).
+struct across_groups {
+    std::vector<double> best;  // P(group k has the best rate)
+    std::vector<double> loss;  // E[best rate] - E[rate_k] (mirrored for goal low), >= 0
+    double expected_best = 0;  // E[max] for goal high, E[min] for goal low
+};
+// Memo of that pass keyed by the laws' parameters and the goal, so that a
+// column of RATES.POST.BEST or .LOSS cells beside a RATES.POST.TABLE costs
+// one pass and every cell shows the table's value to the last bit.
+using across_cache = lru_cache<std::pair<std::vector<double>, goal>, across_groups>;
+across_groups across(std::span<const beta_law> laws, goal g, across_cache* cache = nullptr);
+
 // P(law i has the best rate among `laws`) (the highest, or the lowest for goal low).
-double best(std::span<const beta_law> laws, std::size_t i, goal g);
+double best(std::span<const beta_law> laws, std::size_t i, goal g, across_cache* cache = nullptr);
 // Expected shortfall of choosing law i: E[best rate] - E[rate_i] (mirrored for goal low).
-double loss(std::span<const beta_law> laws, std::size_t i, goal g);
+double loss(std::span<const beta_law> laws, std::size_t i, goal g, across_cache* cache = nullptr);
 // RATES.POST.ORDER: cell (r, c) holds P(rate_r > rate_c), the diagonal 0.
 std::vector<std::vector<double>> order(std::span<const beta_law> laws);
 // Posterior probability that every group shares one rate (prior probability
@@ -130,6 +143,6 @@ struct summary_row {
     interval bounds;  // central, at `level`
     double best = 0, loss = 0;
 };
-std::vector<summary_row> summary(const counts& c, double level, goal g, prior p);
+std::vector<summary_row> summary(const counts& c, double level, goal g, prior p, across_cache* cache = nullptr);
 
 }  // namespace tallyrates::bayes

@@ -36,10 +36,18 @@ struct vector_integrals {
     std::size_t evaluations = 0;       // node evaluations (each fills every component)
 };
 
-// Tolerance of component c: error <= max(absolute[c], relative * |value[c]|).
+// Tolerance of component c: error <= max(absolute[c], r * |value[c]|), with
+// r = relative, or small_relative for a value below small_below (a small
+// probability needs its relative digits, not 1e-10 of them).
 struct vector_tolerance {
     double relative = 1e-10;
     std::vector<double> absolute;
+    double small_relative = 1e-10, small_below = 0;
+
+    double allowed(std::size_t c, double value) const {
+        const double v = std::fabs(value);
+        return std::max(absolute[c], (v < small_below ? small_relative : relative) * v);
+    }
 };
 
 // The caps that bound one call: past either, no_convergence.
@@ -100,7 +108,7 @@ vector_integrals integrate_pieces(F f, std::vector<quadrature_piece> pieces, std
         std::vector<double> share(width, -1.0);  // negative: the component is settled
         bool open = false;
         for (std::size_t c = 0; c < width; ++c) {
-            const double allowed = std::max(tolerance.absolute[c], tolerance.relative * std::fabs(out.value[c]));
+            const double allowed = tolerance.allowed(c, out.value[c]);
             if (out.error[c] > allowed) {
                 share[c] = allowed / static_cast<double>(pieces.size());
                 open = true;
