@@ -121,8 +121,11 @@ struct breakpoint {
 
 // The pieces between `from` and `to`, cut at every law's scale; points closer
 // than half the finer scale of two neighbours are merged.
-std::vector<double> cuts_between(const std::vector<placed_law>& laws, double from, double to) {
-    static constexpr double sds[] = {0, 2, -2, 5, -5, 10, -10};
+std::vector<double> cuts_between(const std::vector<placed_law>& laws, double from, double to, bool densities) {
+    // A density is a peak that nodes may step over: cuts at 2, 5 and 10 sd.
+    // The expected best's integrand, a product of CDFs, only steps.
+    static constexpr double peak_sds[] = {0, 2, -2, 5, -5, 10, -10}, step_sds[] = {0};
+    const std::span<const double> sds = densities ? std::span<const double>(peak_sds) : std::span<const double>(step_sds);
     std::vector<breakpoint> points;
     for (const auto& law : laws) {
         const double m = law.mean(), s = law.sd();
@@ -193,9 +196,9 @@ axis_problem set_up(std::span<const beta_law> input, goal g, double tail) {
 
 // The pieces of [from, to]; an end piece next to an infinite density gets
 // the power substitution (its map and exponent in `maps`).
-std::vector<quadrature_piece> pieces_of(const axis_problem& p, end_maps& maps) {
+std::vector<quadrature_piece> pieces_of(const axis_problem& p, end_maps& maps, bool densities) {
     if (!(p.to > p.from)) return {};
-    const auto cuts = cuts_between(p.laws, p.from, p.to);
+    const auto cuts = cuts_between(p.laws, p.from, p.to, densities);
     double a_min = 1, b_min = 1;
     for (const auto& l : p.laws) {
         a_min = std::min(a_min, l.a);
@@ -219,14 +222,13 @@ std::vector<quadrature_piece> pieces_of(const axis_problem& p, end_maps& maps) {
     return pieces;
 }
 
-// The G (+ 1) integrands at one node: f_k prod_{j != k} C_j for every group
-// k, and the expected best's integrand, all from one evaluation of each law
-// whose window holds the node.
+// The integrands at one node, from one evaluation of each law whose window
+// holds it: f_k prod_{j != k} C_j for every group k (answers::every_best) or
+// the first only (first_best), or the expected best's integrand (expected).
 class node_values {
 public:
     node_values(const axis_problem& p, const end_maps& maps, answers what)
-        : p_(p), maps_(maps), all_(what == answers::all), log_f_(p.laws.size()), log_c_(p.laws.size()),
-          prefix_(p.laws.size() + 1) {
+        : p_(p), maps_(maps), what_(what), log_f_(p.laws.size()), log_c_(p.laws.size()), prefix_(p.laws.size() + 1) {
         // Cost of one law's evaluation, in units of about 2 us: Boost's
         // incomplete beta slows as the parameters grow (measured: 1.4 us at
         // 10^3 attempts, 5.8 at 10^6, 250 at 10^12, 1.9 ms at 10^15).
@@ -237,7 +239,7 @@ public:
         const std::size_t G = p_.laws.size();
         const axis_point at = point_at(map, v, maps_);
         if (!(at.jacobian > 0) || !(at.s > 0) || !(at.s_gap > 0) || !std::isfinite(at.jacobian)) {
-            std::fill(values, values + (all_ ? G + 1 : 1), 0.0);
+            std::fill(values, values + (what_ == answers::every_best ? G : 1), 0.0);
             return;
         }
         for (std::size_t j = 0; j < G; ++j) evaluate(j, at);
@@ -246,24 +248,27 @@ public:
                                   format_number(max_law_evaluations) +
                                   " units of work, the cap of one call (about 2 s); groups of more than about "
                                   "10^12 attempts or many groups cost the most.");
-        if (!all_) {  // the first group's P(best) alone
-            double others = 0;
-            for (std::size_t j = 1; j < G; ++j) others += log_c_[j];
-            values[0] = std::isfinite(log_f_[0]) ? std::exp(log_f_[0] + others) * at.jacobian : 0.0;
-            return;
-        }
         // Every group's product of the others without dividing: prefix and suffix sums in logs.
         prefix_[0] = 0;
         for (std::size_t j = 0; j < G; ++j) prefix_[j + 1] = prefix_[j] + log_c_[j];
+        if (what_ == answers::expected) {
+            values[0] = (p_.want_high ? -std::expm1(prefix_[G]) : std::exp(prefix_[G])) * at.jacobian;
+            return;
+        }
         double suffix = 0;
         for (std::size_t j = G; j-- > 0;) {
-            values[j] = std::isfinite(log_f_[j]) ? std::exp(log_f_[j] + prefix_[j] + suffix) * at.jacobian : 0.0;
+            const double v_j = std::isfinite(log_f_[j]) ? std::exp(log_f_[j] + prefix_[j] + suffix) * at.jacobian : 0.0;
+            if (what_ == answers::every_best) values[j] = v_j;
+            else if (j == 0) values[0] = v_j;
             suffix += log_c_[j];
         }
-        if (all_) values[G] = (p_.want_high ? -std::expm1(prefix_[G]) : std::exp(prefix_[G])) * at.jacobian;
     }
 
 private:
+    bool needs_density(std::size_t j) const {
+        return what_ == answers::every_best || (what_ == answers::first_best && j == 0);
+    }
+
     void evaluate(std::size_t j, const axis_point& at) {
         const placed_law& l = p_.laws[j];
         if (at.s < l.low || at.s_gap < l.high_gap) {
@@ -273,14 +278,13 @@ private:
             return;
         }
         work_ += cost_[j];
-        // Densities only of the groups whose P(best) is wanted (half the work for P(ahead)).
-        log_f_[j] = all_ || j == 0 ? log_density_at(l, at) : -HUGE_VAL;
+        log_f_[j] = needs_density(j) ? log_density_at(l, at) : -HUGE_VAL;
         log_c_[j] = log_cdf_at(l, at, p_.want_high);
     }
 
     const axis_problem& p_;
     const end_maps& maps_;
-    bool all_;
+    answers what_;
     std::vector<double> cost_, log_f_, log_c_, prefix_;
     double work_ = 0;
 };
@@ -302,29 +306,30 @@ double rounding_floor(const axis_problem& p) {
 }  // namespace
 
 across_groups compare_all(std::span<const beta_law> input, goal g, reach how, answers what) {
-    const bool all = what == answers::all;
-    const std::size_t G = input.size(), width = all ? G + 1 : 1;
+    const std::size_t G = input.size(), width = what == answers::every_best ? G : 1;
     const axis_problem p = set_up(input, g, how.tail);
     end_maps maps;
-    const auto pieces = pieces_of(p, maps);
+    const auto pieces = pieces_of(p, maps, what != answers::expected);
     const double floor = rounding_floor(p);
     vector_tolerance tolerance{std::max(how.relative, floor), std::vector<double>(width, how.absolute),
                                std::max(how.small_relative, floor), 1e-3};
-    if (all) tolerance.absolute[G] = std::max(1e-13, floor * p.to);
+    // The expected best is a rate, not a probability that may be tiny.
+    if (what == answers::expected) tolerance.absolute[0] = std::max(1e-13, floor * p.to);
     const auto integrals = pieces.empty() ? vector_integrals{std::vector<double>(width, 0.0), {}, 0}
                                           : integrate_pieces(node_values(p, maps, what), pieces, width, tolerance);
     across_groups out;
-    for (std::size_t k = 0; k < G; ++k)
-        out.best.push_back(all || k == 0 ? std::clamp(integrals.value[k], 0.0, 1.0)
-                                         : std::numeric_limits<double>::quiet_NaN());
-    if (all) {
+    if (what == answers::expected) {
         // Below `from` the integrand of the expected best is 1 (some law is
         // surely below / every law is surely above), beyond `to` it is 0.
-        const double expected = p.from + integrals.value[G];
+        const double expected = p.from + integrals.value[0];
         out.expected_best = p.mirrored ? 1 - expected : expected;
         for (const auto& l : p.laws)
             out.loss.push_back(std::max(0.0, p.want_high ? expected - l.mean() : l.mean() - expected));
+        return out;
     }
+    for (std::size_t k = 0; k < G; ++k)
+        out.best.push_back(what == answers::every_best || k == 0 ? std::clamp(integrals.value[k], 0.0, 1.0)
+                                                                 : std::numeric_limits<double>::quiet_NaN());
     return out;
 }
 

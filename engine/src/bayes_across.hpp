@@ -6,8 +6,9 @@
 // CDF F_j (goal high) or 1 - F_j (goal low); E[max] = integral of
 // (1 - prod F_j), E[min] = integral of prod (1 - F_j) (Gelman et al. 2013,
 // Bayesian Data Analysis, 3rd ed., for the laws; the integrals are the
-// order-statistic identities of any probability text). All G + 1 integrals
-// share the node values, so the pass costs about what one integral costs.
+// order-statistic identities of any probability text). The G integrals of
+// P(best) share the node values, so that pass costs about what one integral
+// costs; E[best] needs no densities and has a pass of its own.
 //
 // What makes it trustworthy for laws of very different widths (a pilot of 5
 // beside a line of 10^4, where a single adaptive rule over one group's window
@@ -58,12 +59,14 @@ inline constexpr reach for_comparison{1e-16, 1e-9, 1e-12, 1e-9};
 // 10^5 (wider than the quantile, never narrower).
 double lower_tail_point(double a, double b, double tail);
 
-// Which answers a call needs to its tolerance: every group's P(best) and the
-// expected best (RATES.POST.BEST, .LOSS, .TABLE), or the first group's P(best)
-// alone (P(ahead) of two laws; the other answers are then NaN).
-enum class answers { all, first_best };
+// Which answers one pass computes: every group's P(best) (RATES.POST.BEST,
+// the table's column), the first group's alone (P(ahead) of two laws; the
+// others are NaN), or the expected best rate and every group's loss
+// (RATES.POST.LOSS: CDFs only, no densities). Each answer always comes from
+// the same kind of pass, so a cell never depends on which cell ran first.
+enum class answers { every_best, first_best, expected };
 
-across_groups compare_all(std::span<const beta_law> laws, goal g, reach how, answers what = answers::all);
+across_groups compare_all(std::span<const beta_law> laws, goal g, reach how, answers what);
 
 // Work cap of one pass, in law evaluations at quadrature nodes weighted by
 // their cost (a unit is about 2 us, so the cap is about 2 s): past it,

@@ -40,6 +40,7 @@
 #include <cstdint>
 #include <optional>
 #include <span>
+#include <tuple>
 #include <vector>
 
 #include "tallyrates/cache.hpp"
@@ -102,17 +103,19 @@ inline constexpr std::size_t max_groups_best = 200, max_groups_order = 100, max_
                              max_groups_table = 30;
 inline constexpr double max_curve_values = 2e6;
 
-// Every group's chance of being the best and expected loss, from one pass
-// over the rate axis (src/bayes_across.hpp).
+// Every group's chance of being the best and expected loss, each from one
+// pass over the rate axis for all groups (src/bayes_across.hpp).
 struct across_groups {
     std::vector<double> best;  // P(group k has the best rate)
     std::vector<double> loss;  // E[best rate] - E[rate_k] (mirrored for goal low), >= 0
     double expected_best = 0;  // E[max] for goal high, E[min] for goal low
 };
-// Memo of that pass keyed by the laws' parameters and the goal, so that a
-// column of RATES.POST.BEST or .LOSS cells beside a RATES.POST.TABLE costs
-// one pass and every cell shows the table's value to the last bit.
-using across_cache = lru_cache<std::pair<std::vector<double>, goal>, across_groups>;
+// Memo of those passes keyed by the laws' parameters, the goal and which
+// pass (0: P(best), 1: expected best), so that a column of RATES.POST.BEST
+// or .LOSS cells beside a RATES.POST.TABLE costs one pass each, and every
+// cell shows the table's value to the last bit.
+using across_key = std::tuple<std::vector<double>, goal, int>;
+using across_cache = lru_cache<across_key, across_groups>;
 across_groups across(std::span<const beta_law> laws, goal g, across_cache* cache = nullptr);
 
 // P(law i has the best rate among `laws`) (the highest, or the lowest for goal low).
