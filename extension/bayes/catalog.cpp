@@ -21,6 +21,10 @@ using shared::successes;
     " If the cell shows Err:502: i must name a filled row of the range (a group with 0 attempts is fine: it "   \
     "keeps the prior), priors must lie from 0.01 to 1000000 and words as listed; RATES.CHECK on the same ranges checks the " \
     "counts."
+// Where the answer is an integral over the groups' laws (P(best), the loss,
+// P(ahead) when no finite sum applies).
+#define WHY_523_WORK                                                                                         \
+    " Err:523 when the groups' laws need more than about 2 s of work (groups of 10^12 attempts and more)."
 
 constexpr argument credible_level{
     "level", "Probability the interval holds, between 0 and 1: 0.95 means the rate lies inside with probability 95 %.",
@@ -34,7 +38,9 @@ constexpr argument rate{"rate",
                         "The target rate as a fraction, e.g. 0.99 for 99 % within specification (or, with goal "
                         "\"low\", the largest defect rate you accept).",
                         ""};
-constexpr argument further{"m", "How many further attempts (units, runs) you plan: a whole number, 0 or more.", ""};
+constexpr argument further{
+    "m", "How many further attempts (units, runs) you plan: a whole number, 0 or more, up to 10^15 (beyond: Err:523).",
+    ""};
 constexpr argument at_least{"k", "How many of those must succeed: a whole number from 0 to m.", "m: every one"};
 
 constexpr std::array mean_args{successes, attempts, i, prior_a, prior_b};
@@ -80,7 +86,8 @@ constexpr std::array table{
              next_args},
     function{"postAhead", "RATES.POST.AHEAD",
              "Probability that the rate of group i is above the rate of group j, given both groups' counts: "
-             "\"the pilot line is better than line 2 with probability 0.93\"." WHY_502_POST,
+             "\"the pilot line is better than line 2 with probability 0.93\". i and j must differ." WHY_502_POST
+             WHY_523_WORK,
              ahead_args},
     function{"postDiffLow", "RATES.POST.DIFF.LOW",
              "Lower end of the central credible interval for rate of group i minus rate of group j (a fraction; "
@@ -100,12 +107,13 @@ constexpr std::array table{
              order_args, true},
     function{"postBest", "RATES.POST.BEST",
              "Probability that group i has the best rate of all the groups (the highest; the lowest with goal "
-             "\"low\" for defect counts). Over all groups these add up to 1. Up to 200 groups." WHY_502_POST,
+             "\"low\" for defect counts). Over all groups these add up to 1. Up to 200 groups; more give Err:523."
+             WHY_502_POST WHY_523_WORK,
              best_args},
     function{"postLoss", "RATES.POST.LOSS",
              "Expected shortfall of choosing group i: how much rate (a fraction; format as %) you expect to give "
-             "up against the truly best group. Near 0: choosing i costs little even if it is not the best."
-             WHY_502_POST,
+             "up against the truly best group. Near 0: choosing i costs little even if it is not the best. Up to "
+             "200 groups; more give Err:523." WHY_502_POST WHY_523_WORK,
              best_args},
     function{"postSame", "RATES.POST.SAME",
              "Probability that every group shares one rate rather than each having its own, given the counts. "
@@ -123,11 +131,12 @@ constexpr std::array table{
              "Array with a header row, then one row per group: its name or position, expected rate, credible "
              "interval low and high (central), probability of being the best, and expected loss of choosing it. "
              "Enter as an array formula 6 columns wide and G + 1 rows high. Up to 30 groups; more give Err:523."
-             WHY_502_POST,
+             WHY_502_POST WHY_523_WORK,
              table_args, true},
 };
 
 #undef WHY_502_POST
+#undef WHY_523_WORK
 
 }  // namespace
 

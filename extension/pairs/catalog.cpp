@@ -65,7 +65,8 @@ constexpr std::array one_args{successes, attempts, i, level, shared::one_rate_me
 constexpr std::array table{
     function{"diff", "RATES.DIFF",
              "Observed rate of group i minus rate of group j, as a fraction: format the cell as % to read it in "
-             "percentage points (0.047 is 4.7 points), not as a relative change." TALLYRATES_WHY_502_POSITIONS,
+             "percentage points (0.047 is 4.7 points), not as a relative change. i and j must differ."
+             TALLYRATES_WHY_502_POSITIONS,
              diff_args},
     function{"diffLow", "RATES.DIFF.LOW",
              "Lower end of the confidence interval for rate of group i minus rate of group j (a fraction; format "
