@@ -387,14 +387,20 @@ def width_reference(rate, half, lv, method):
     return int(ns[ok[0]]) if len(ok) else None
 
 
-def power_reference(p1, p2, power, alpha):
+def power_reference(p1, p2, power, alpha, corrected=False):
+    """Fleiss, Levin & Paik (2003): n' = (z_(alpha/2) sqrt(2 pbar qbar) + z_power
+    sqrt(p1 q1 + p2 q2))^2 / (p1 - p2)^2; corrected (Fleiss, Tytun & Ury 1980):
+    n = n'/4 (1 + sqrt(1 + 4 / (n' |p1 - p2|)))^2; the ceiling, 50 digits."""
     with mpmath.workdps(50):
         p1, p2, power, alpha = (mpmath.mpf(v) for v in (p1, p2, power, alpha))
         za = -mpmath.sqrt(2) * mpmath.erfinv(2 * (alpha / 2) - 1)
         zb = mpmath.sqrt(2) * mpmath.erfinv(2 * power - 1)
         pbar = (p1 + p2) / 2
         k = za * mpmath.sqrt(2 * pbar * (1 - pbar)) + zb * mpmath.sqrt(p1 * (1 - p1) + p2 * (1 - p2))
-        return int(mpmath.ceil(k * k / (p1 - p2) ** 2 - mpmath.mpf(10) ** -30))
+        n = k * k / (p1 - p2) ** 2
+        if corrected:
+            n = n / 4 * (1 + mpmath.sqrt(1 + 4 / (n * abs(p1 - p2)))) ** 2
+        return int(mpmath.ceil(n - mpmath.mpf(10) ** -30))
 
 
 def planning_rows(w):
@@ -501,18 +507,6 @@ def hpd_rows(w):
         out(w, "bayes", "sweep_hpd_%d" % case, [x], [n], "hpd_high|%r|%r|1|%r" % (pa, pb, lv), bounds[1], src)
 
 
-def power_corrected_reference(p1, p2, power, alpha):
-    """Fleiss, Tytun & Ury (1980): n = n'/4 (1 + sqrt(1 + 4 / (n' |p1 - p2|)))^2, 50 digits."""
-    with mpmath.workdps(50):
-        p1, p2, power, alpha = (mpmath.mpf(v) for v in (p1, p2, power, alpha))
-        za = -mpmath.sqrt(2) * mpmath.erfinv(2 * (alpha / 2) - 1)
-        zb = mpmath.sqrt(2) * mpmath.erfinv(2 * power - 1)
-        pbar = (p1 + p2) / 2
-        k = za * mpmath.sqrt(2 * pbar * (1 - pbar)) + zb * mpmath.sqrt(p1 * (1 - p1) + p2 * (1 - p2))
-        plain = k * k / (p1 - p2) ** 2
-        return int(mpmath.ceil(plain / 4 * (1 + mpmath.sqrt(1 + 4 / (plain * abs(p1 - p2)))) ** 2 - mpmath.mpf(10) ** -30))
-
-
 def ahead_plan_reference(pilot, other, conf):
     """The fewest further successes m with P(Beta(a + m, b) > other) >= conf,
     by doubling and bisection on the quadrature; None past 10^9 or where
@@ -552,7 +546,7 @@ def extra_planning_rows(w):
             continue
         power, alpha = float(RNG.choice([0.5, 0.8, 0.9, 0.95])), float(RNG.choice([0.01, 0.05, 0.1]))
         out(w, "planning", "sweep_power_cc_%d" % case, [], [], "power_cc|%r|%r|%r|%r" % (p1, p2, power, alpha),
-            power_corrected_reference(p1, p2, power, alpha),
+            power_reference(p1, p2, power, alpha, corrected=True),
             "mpmath %s (50 digits), Fleiss, Tytun & Ury (1980) correction" % mpmath.__version__)
     for case in range(10):
         pa, pb = (0.5, 0.5) if case % 2 == 0 else (float(round(RNG.uniform(0.1, 3), 2)), float(round(RNG.uniform(0.1, 3), 2)))
