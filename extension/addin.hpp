@@ -14,9 +14,10 @@
 #include <org/tallyrates/sheet/XRates.hpp>
 
 #include "convert.hpp"
-#include "tallyrates/bayes.hpp"
-#include "tallyrates/omnibus.hpp"
-#include "tallyrates/pairwise.hpp"
+#include "tallyrates/bayes/across.hpp"
+#include "tallyrates/bayes/law.hpp"
+#include "tallyrates/omnibus/same_rates.hpp"
+#include "tallyrates/pairs/pairwise.hpp"
 
 namespace tallyrates::uno {
 

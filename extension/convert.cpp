@@ -17,8 +17,8 @@
 #include <rtl/ustring.hxx>
 
 #include "guard.hpp"
-#include "tallyrates/arguments.hpp"
-#include "tallyrates/text.hpp"
+#include "tallyrates/core/arguments.hpp"
+#include "tallyrates/core/text.hpp"
 
 namespace tallyrates::convert {
 

@@ -22,8 +22,8 @@
 #include <string>
 #include <vector>
 
-#include "tallyrates/counts.hpp"
-#include "tallyrates/report.hpp"
+#include "tallyrates/core/counts.hpp"
+#include "tallyrates/omnibus/report.hpp"
 
 namespace tallyrates::convert {
 

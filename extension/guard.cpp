@@ -9,7 +9,7 @@
 #include <new>
 #include <stdexcept>
 
-#include "tallyrates/errors.hpp"
+#include "tallyrates/core/errors.hpp"
 
 namespace tallyrates::uno {
 

@@ -5,9 +5,12 @@
 #include "../guard.hpp"
 #include "keywords.hpp"
 #include "prior.hpp"
-#include "tallyrates/bayes.hpp"
-#include "tallyrates/pairwise.hpp"
-#include "tallyrates/text.hpp"
+#include "tallyrates/bayes/across.hpp"
+#include "tallyrates/bayes/alike.hpp"
+#include "tallyrates/bayes/comparison.hpp"
+#include "tallyrates/bayes/law.hpp"
+#include "tallyrates/pairs/pairwise.hpp"
+#include "tallyrates/core/text.hpp"
 
 namespace tallyrates::uno {
 

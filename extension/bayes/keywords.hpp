@@ -5,8 +5,8 @@
 
 #include <array>
 
-#include "tallyrates/arguments.hpp"
-#include "tallyrates/bayes.hpp"
+#include "tallyrates/core/arguments.hpp"
+#include "tallyrates/bayes/law.hpp"
 
 namespace tallyrates::keywords {
 

@@ -4,7 +4,7 @@
 #pragma once
 
 #include "../convert.hpp"
-#include "tallyrates/bayes.hpp"
+#include "tallyrates/bayes/law.hpp"
 
 namespace tallyrates::uno {
 

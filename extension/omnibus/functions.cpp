@@ -4,9 +4,11 @@
 #include "../addin.hpp"
 #include "../guard.hpp"
 #include "keywords.hpp"
-#include "tallyrates/check.hpp"
-#include "tallyrates/report.hpp"
-#include "tallyrates/trend.hpp"
+#include "tallyrates/core/errors.hpp"
+#include "tallyrates/omnibus/check.hpp"
+#include "tallyrates/omnibus/report.hpp"
+#include "tallyrates/omnibus/residuals.hpp"
+#include "tallyrates/omnibus/trend.hpp"
 
 namespace tallyrates::uno {
 

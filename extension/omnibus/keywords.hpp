@@ -6,9 +6,9 @@
 
 #include <array>
 
-#include "tallyrates/arguments.hpp"
-#include "tallyrates/omnibus.hpp"
-#include "tallyrates/trend.hpp"
+#include "tallyrates/core/arguments.hpp"
+#include "tallyrates/omnibus/same_rates.hpp"
+#include "tallyrates/omnibus/trend.hpp"
 
 namespace tallyrates::keywords {
 

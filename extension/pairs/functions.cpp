@@ -5,10 +5,10 @@
 #include "../addin.hpp"
 #include "../guard.hpp"
 #include "keywords.hpp"
-#include "tallyrates/errors.hpp"
-#include "tallyrates/one_rate.hpp"
-#include "tallyrates/pairwise.hpp"
-#include "tallyrates/text.hpp"
+#include "tallyrates/core/errors.hpp"
+#include "tallyrates/pairs/one_rate.hpp"
+#include "tallyrates/pairs/pairwise.hpp"
+#include "tallyrates/core/text.hpp"
 
 namespace tallyrates::uno {
 

@@ -8,10 +8,10 @@
 #include <string>
 #include <utility>
 
-#include "tallyrates/adjust.hpp"
-#include "tallyrates/arguments.hpp"
-#include "tallyrates/one_rate.hpp"
-#include "tallyrates/pairwise.hpp"
+#include "tallyrates/pairs/adjust.hpp"
+#include "tallyrates/core/arguments.hpp"
+#include "tallyrates/pairs/one_rate.hpp"
+#include "tallyrates/pairs/pairwise.hpp"
 
 namespace tallyrates::keywords {
 

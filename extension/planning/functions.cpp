@@ -6,9 +6,10 @@
 #include "../bayes/prior.hpp"
 #include "../pairs/keywords.hpp"
 #include "keywords.hpp"
-#include "tallyrates/bayes.hpp"
-#include "tallyrates/pairwise.hpp"
-#include "tallyrates/planning.hpp"
+#include "tallyrates/bayes/comparison.hpp"
+#include "tallyrates/bayes/law.hpp"
+#include "tallyrates/pairs/pairwise.hpp"
+#include "tallyrates/planning/planning.hpp"
 
 namespace tallyrates::uno {
 

@@ -6,8 +6,8 @@
 
 #include <array>
 
-#include "tallyrates/arguments.hpp"
-#include "tallyrates/planning.hpp"
+#include "tallyrates/core/arguments.hpp"
+#include "tallyrates/planning/planning.hpp"
 
 namespace tallyrates::keywords {
 

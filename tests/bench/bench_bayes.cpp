@@ -7,7 +7,9 @@
 #include <cmath>
 #include <random>
 
-#include "tallyrates/bayes.hpp"
+#include "tallyrates/bayes/across.hpp"
+#include "tallyrates/bayes/comparison.hpp"
+#include "tallyrates/bayes/law.hpp"
 
 using namespace tallyrates;
 

@@ -23,8 +23,8 @@
 #include <vector>
 
 #include "../engine/golden_cases.hpp"
-#include "tallyrates/errors.hpp"
-#include "tallyrates/omnibus.hpp"
+#include "tallyrates/core/errors.hpp"
+#include "tallyrates/omnibus/same_rates.hpp"
 
 using namespace tallyrates;
 using namespace tallyrates::omnibus;

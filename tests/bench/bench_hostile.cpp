@@ -17,8 +17,8 @@
 #include <string>
 #include <vector>
 
-#include "tallyrates/errors.hpp"
-#include "tallyrates/omnibus.hpp"
+#include "tallyrates/core/errors.hpp"
+#include "tallyrates/omnibus/same_rates.hpp"
 
 using namespace tallyrates;
 

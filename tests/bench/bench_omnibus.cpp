@@ -6,7 +6,7 @@
 
 #include <cmath>
 
-#include "tallyrates/omnibus.hpp"
+#include "tallyrates/omnibus/same_rates.hpp"
 
 using namespace tallyrates;
 using namespace tallyrates::omnibus;

@@ -3,8 +3,8 @@
 // Figures go into the README; nothing here passes or fails.
 #include <benchmark/benchmark.h>
 
-#include "tallyrates/one_rate.hpp"
-#include "tallyrates/pairwise.hpp"
+#include "tallyrates/pairs/one_rate.hpp"
+#include "tallyrates/pairs/pairwise.hpp"
 
 using namespace tallyrates;
 

@@ -3,8 +3,8 @@
 // 10^6 attempts). Figures go into the README; nothing here passes or fails.
 #include <benchmark/benchmark.h>
 
-#include "tallyrates/errors.hpp"
-#include "tallyrates/planning.hpp"
+#include "tallyrates/core/errors.hpp"
+#include "tallyrates/planning/planning.hpp"
 
 using namespace tallyrates;
 

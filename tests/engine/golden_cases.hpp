@@ -10,9 +10,9 @@
 #include <string>
 #include <vector>
 
-#include "tallyrates/errors.hpp"
-#include "tallyrates/omnibus.hpp"
-#include "tallyrates/trend.hpp"
+#include "tallyrates/core/errors.hpp"
+#include "tallyrates/omnibus/same_rates.hpp"
+#include "tallyrates/omnibus/trend.hpp"
 
 namespace tallyrates::testing {
 

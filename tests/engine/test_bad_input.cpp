@@ -6,12 +6,13 @@
 #include <cmath>
 #include <limits>
 
-#include "tallyrates/check.hpp"
-#include "tallyrates/errors.hpp"
-#include "tallyrates/omnibus.hpp"
-#include "tallyrates/one_rate.hpp"
-#include "tallyrates/pairwise.hpp"
-#include "tallyrates/trend.hpp"
+#include "tallyrates/omnibus/check.hpp"
+#include "tallyrates/core/errors.hpp"
+#include "tallyrates/omnibus/same_rates.hpp"
+#include "tallyrates/omnibus/residuals.hpp"
+#include "tallyrates/pairs/one_rate.hpp"
+#include "tallyrates/pairs/pairwise.hpp"
+#include "tallyrates/omnibus/trend.hpp"
 
 using namespace tallyrates;
 

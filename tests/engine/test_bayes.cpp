@@ -1,4 +1,4 @@
-// Tests of the Bayesian answers about one group (bayes.hpp) against
+// Tests of the Bayesian answers about one group (tallyrates/bayes/) against
 // 50-digit mpmath rows of tests/reference/omnibus.csv (generate.py: the
 // incomplete beta function by its continued fraction, bisection and findroot,
 // the beta-binomial sum; NEXT rows also agree with scipy stats.betabinom).
@@ -10,8 +10,11 @@
 #include <sstream>
 
 #include "reference.hpp"
-#include "tallyrates/bayes.hpp"
-#include "tallyrates/errors.hpp"
+#include "tallyrates/bayes/across.hpp"
+#include "tallyrates/bayes/alike.hpp"
+#include "tallyrates/bayes/comparison.hpp"
+#include "tallyrates/bayes/law.hpp"
+#include "tallyrates/core/errors.hpp"
 
 using namespace tallyrates;
 using tallyrates::testing::fields;
@@ -138,7 +141,7 @@ TEST(Compare, ReferenceRows) {
         double tol_scale = 1;
         if (what == "post_same") {
             got = bayes::same(c.groups(), p, std::stod(f[3]));
-            // log-gamma differences at n = 10^6 (bayes.cpp, log_beta): about 1e-8 relative.
+            // log-gamma differences at n = 10^6 (bayes/law_math.cpp, log_beta): about 1e-8 relative.
             if (r.name == "c_million") tol_scale = 10;
         }
         const double want = r.value;

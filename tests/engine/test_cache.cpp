@@ -6,7 +6,8 @@
 
 #include <thread>
 
-#include "tallyrates/omnibus.hpp"
+#include "tallyrates/core/errors.hpp"
+#include "tallyrates/omnibus/same_rates.hpp"
 
 using namespace tallyrates;
 using namespace tallyrates::omnibus;

@@ -5,9 +5,9 @@
 
 #include <cmath>
 
-#include "tallyrates/check.hpp"
-#include "tallyrates/counts.hpp"
-#include "tallyrates/errors.hpp"
+#include "tallyrates/omnibus/check.hpp"
+#include "tallyrates/core/counts.hpp"
+#include "tallyrates/core/errors.hpp"
 
 using namespace tallyrates;
 

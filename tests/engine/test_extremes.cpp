@@ -13,9 +13,11 @@
 #include <functional>
 #include <string>
 
-#include "tallyrates/bayes.hpp"
-#include "tallyrates/errors.hpp"
-#include "tallyrates/planning.hpp"
+#include "tallyrates/bayes/across.hpp"
+#include "tallyrates/bayes/comparison.hpp"
+#include "tallyrates/bayes/law.hpp"
+#include "tallyrates/core/errors.hpp"
+#include "tallyrates/planning/planning.hpp"
 
 using namespace tallyrates;
 

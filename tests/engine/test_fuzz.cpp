@@ -9,10 +9,10 @@
 #include <cmath>
 #include <random>
 
-#include "tallyrates/check.hpp"
-#include "tallyrates/errors.hpp"
-#include "tallyrates/omnibus.hpp"
-#include "tallyrates/report.hpp"
+#include "tallyrates/omnibus/check.hpp"
+#include "tallyrates/core/errors.hpp"
+#include "tallyrates/omnibus/same_rates.hpp"
+#include "tallyrates/omnibus/report.hpp"
 
 using namespace tallyrates;
 

@@ -24,7 +24,8 @@
 
 #include "golden_cases.hpp"
 #include "reference.hpp"
-#include "tallyrates/omnibus.hpp"
+#include "tallyrates/core/errors.hpp"
+#include "tallyrates/omnibus/same_rates.hpp"
 
 namespace {
 

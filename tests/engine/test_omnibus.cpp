@@ -12,9 +12,9 @@
 #include "detail/hypergeometric.hpp"
 #include "golden_cases.hpp"
 #include "reference.hpp"
-#include "tallyrates/errors.hpp"
-#include "tallyrates/omnibus.hpp"
-#include "tallyrates/trend.hpp"
+#include "tallyrates/core/errors.hpp"
+#include "tallyrates/omnibus/same_rates.hpp"
+#include "tallyrates/omnibus/trend.hpp"
 
 using namespace tallyrates;
 using namespace tallyrates::omnibus;

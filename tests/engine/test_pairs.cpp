@@ -17,11 +17,12 @@
 #include <sstream>
 
 #include "reference.hpp"
-#include "tallyrates/adjust.hpp"
-#include "tallyrates/errors.hpp"
-#include "tallyrates/omnibus.hpp"
-#include "tallyrates/one_rate.hpp"
-#include "tallyrates/pairwise.hpp"
+#include "tallyrates/pairs/adjust.hpp"
+#include "tallyrates/core/errors.hpp"
+#include "tallyrates/omnibus/same_rates.hpp"
+#include "tallyrates/omnibus/residuals.hpp"
+#include "tallyrates/pairs/one_rate.hpp"
+#include "tallyrates/pairs/pairwise.hpp"
 
 using namespace tallyrates;
 using tallyrates::testing::reference_rows;

@@ -13,8 +13,8 @@
 #include <sstream>
 
 #include "reference.hpp"
-#include "tallyrates/errors.hpp"
-#include "tallyrates/planning.hpp"
+#include "tallyrates/core/errors.hpp"
+#include "tallyrates/planning/planning.hpp"
 
 using namespace tallyrates;
 using tallyrates::testing::fields;

@@ -15,13 +15,16 @@
 #include <sstream>
 
 #include "reference.hpp"
-#include "tallyrates/bayes.hpp"
-#include "tallyrates/errors.hpp"
-#include "tallyrates/omnibus.hpp"
-#include "tallyrates/one_rate.hpp"
-#include "tallyrates/pairwise.hpp"
-#include "tallyrates/planning.hpp"
-#include "tallyrates/trend.hpp"
+#include "tallyrates/bayes/across.hpp"
+#include "tallyrates/bayes/comparison.hpp"
+#include "tallyrates/bayes/law.hpp"
+#include "tallyrates/core/errors.hpp"
+#include "tallyrates/omnibus/same_rates.hpp"
+#include "tallyrates/omnibus/residuals.hpp"
+#include "tallyrates/pairs/one_rate.hpp"
+#include "tallyrates/pairs/pairwise.hpp"
+#include "tallyrates/planning/planning.hpp"
+#include "tallyrates/omnibus/trend.hpp"
 
 using namespace tallyrates;
 using tallyrates::testing::csv_fields;
@@ -59,7 +62,7 @@ void expect_within(double got, double want, double absolute, double relative, co
 
 // The engine's promise for a probability (issue 8): 1e-10 absolute, and 1e-8
 // relative below 1e-3; below about 1e-90, absolute only (its windows cut the
-// laws at 1e-100, bayes.hpp).
+// laws at 1e-100, bayes/across.hpp).
 void expect_probability(double got, double want, const sweep_row& r) {
     if (std::fabs(want) < 1e-80) expect_within(got, want, 1e-90, 0, r);
     else if (std::fabs(want) < 1e-3) expect_within(got, want, 1e-300, 1e-8, r);

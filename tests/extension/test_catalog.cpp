@@ -13,7 +13,8 @@
 #include "omnibus/keywords.hpp"
 #include "pairs/keywords.hpp"
 #include "planning/keywords.hpp"
-#include "tallyrates/omnibus.hpp"
+#include "tallyrates/core/errors.hpp"
+#include "tallyrates/omnibus/same_rates.hpp"
 
 using namespace tallyrates;
 

@@ -17,7 +17,7 @@
 #include "convert.hpp"
 #include "guard.hpp"
 #include "omnibus/keywords.hpp"
-#include "tallyrates/errors.hpp"
+#include "tallyrates/core/errors.hpp"
 
 using css::uno::Any;
 using css::uno::Sequence;

@@ -6,8 +6,8 @@
 #include <boost/math/special_functions/gamma.hpp>
 #include <cmath>
 
-#include "tallyrates/errors.hpp"
-#include "tallyrates/text.hpp"
+#include "tallyrates/core/errors.hpp"
+#include "tallyrates/core/text.hpp"
 
 namespace tallyrates::detail {
 

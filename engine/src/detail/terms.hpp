@@ -9,7 +9,7 @@
 
 #include <vector>
 
-#include "tallyrates/omnibus.hpp"
+#include "tallyrates/omnibus/table.hpp"
 
 namespace tallyrates::detail {
 

@@ -19,7 +19,7 @@
 #include <cstddef>
 #include <vector>
 
-#include "tallyrates/errors.hpp"
+#include "tallyrates/core/errors.hpp"
 
 namespace tallyrates::detail {
 

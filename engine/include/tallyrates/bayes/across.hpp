@@ -1,0 +1,57 @@
+// across.hpp - answers that weigh every group at once: BEST, P(group i is
+// best) = integral of f_i(x) prod_{j != i} F_j(x) dx (1 - F_j for goal "low");
+// LOSS, E[max_j rate_j] - E[rate_i] with E[max] = integral of
+// (1 - prod_j F_j(x)) dx; and TABLE, every group's mean, bounds, BEST and
+// LOSS. The integrals come from one pass over the rate axis for all groups at
+// once (src/bayes/rate_axis.hpp: pieces cut at every law's scale, within the
+// laws' 1e-100 windows, so what is cut is below 1e-90; adaptive Gauss-Kronrod
+// to a relative error estimate of 1e-10 per answer); a pass that does not
+// reach it within its caps is a failure (Err:523), never a silent answer.
+#pragma once
+
+#include <span>
+#include <tuple>
+#include <vector>
+
+#include "tallyrates/bayes/law.hpp"
+#include "tallyrates/core/cache.hpp"
+#include "tallyrates/core/counts.hpp"
+#include "tallyrates/core/interval.hpp"
+
+namespace tallyrates::bayes {
+
+// Caps on the groups of one call (budget_exceeded, Err:523, beyond them),
+// measured to keep each call within about 2 s: BEST and LOSS integrate
+// products over every group (one pass for all of them; README, Speed, for
+// the figures); TABLE is the same pass plus G credible intervals.
+inline constexpr std::size_t max_groups_best = 200, max_groups_table = 30;
+
+// Every group's chance of being the best and expected loss, each from one
+// pass over the rate axis for all groups (src/bayes/rate_axis.hpp).
+struct across_groups {
+    std::vector<double> best;  // P(group k has the best rate)
+    std::vector<double> loss;  // E[best rate] - E[rate_k] (mirrored for goal low), >= 0
+    double expected_best = 0;  // E[max] for goal high, E[min] for goal low
+};
+// Memo of those passes keyed by the laws' parameters, the goal and which
+// pass (0: P(best), 1: expected best), so that a column of RATES.POST.BEST
+// or .LOSS cells beside a RATES.POST.TABLE costs one pass each, and every
+// cell shows the table's value to the last bit.
+using across_key = std::tuple<std::vector<double>, goal, int>;
+using across_cache = lru_cache<across_key, across_groups>;
+across_groups across(std::span<const beta_law> laws, goal g, across_cache* cache = nullptr);
+
+// P(law i has the best rate among `laws`) (the highest, or the lowest for goal low).
+double best(std::span<const beta_law> laws, std::size_t i, goal g, across_cache* cache = nullptr);
+// Expected shortfall of choosing law i: E[best rate] - E[rate_i] (mirrored for goal low).
+double loss(std::span<const beta_law> laws, std::size_t i, goal g, across_cache* cache = nullptr);
+// RATES.POST.TABLE: per non-blank group, what the single-cell functions give.
+struct summary_row {
+    std::size_t position = 0;
+    double mean = 0;
+    interval bounds;  // central, at `level`
+    double best = 0, loss = 0;
+};
+std::vector<summary_row> summary(const counts& c, double level, goal g, prior p, across_cache* cache = nullptr);
+
+}  // namespace tallyrates::bayes

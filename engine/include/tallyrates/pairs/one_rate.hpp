@@ -1,0 +1,36 @@
+// one_rate.hpp - two-sided confidence intervals for one success rate.
+//
+// Methods (Brown, Cai & DasGupta 2001, Stat Sci 16:101, compare them):
+// - wilson: the score interval (Wilson 1927, JASA 22:209);
+// - exact: Clopper & Pearson (1934, Biometrika 26:404), Boost.Math's
+//   binomial bounds;
+// - jeffreys: equal-tailed Beta(x + 1/2, n - x + 1/2) quantiles, Boost.Math's
+//   bounds, with the lower bound 0 at x = 0 and the upper bound 1 at x = n
+//   (Brown, Cai & DasGupta 2001, section 4.1.2; Boost does the same);
+// - agresti_coull: the Wilson centre with a Wald-type width (Agresti & Coull
+//   1998, Am Stat 52:119), the z^2 form, clipped to [0, 1].
+#pragma once
+
+#include <cstdint>
+
+#include "tallyrates/core/counts.hpp"
+#include "tallyrates/core/interval.hpp"
+
+namespace tallyrates::one_rate {
+
+enum class method { wilson, exact, jeffreys, agresti_coull };
+
+// The z of a two-sided interval at `level` (1.96 at 0.95).
+double two_sided_z(double level);
+
+// Interval for x successes in n >= 1 attempts at `level` in (0, 1).
+interval bounds(std::int64_t x, std::int64_t n, double level, method how);
+// The same formulas at a real count 0 <= x <= n (planning searches between
+// whole counts).
+interval bounds_at(double x, double n, double level, method how);
+
+// Interval for the group at position i of the tally (which must have
+// attempts); `level` is checked (arguments::level).
+interval bounds(const counts& c, double i, double level, method how);
+
+}  // namespace tallyrates::one_rate

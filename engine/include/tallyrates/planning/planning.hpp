@@ -1,0 +1,72 @@
+// planning.hpp - how many more attempts: the size of a demonstration test,
+// of a tally whose interval has a given width, of two groups that are to
+// show a given difference, and how long a perfect pilot must keep going.
+//
+// - demonstration (RATES.PLAN.DEMO): the fewest attempts n such that, with at
+//   most f failures among them, the one-sided Clopper-Pearson lower bound
+//   at confidence C for the rate is at least R, i.e.
+//   P(at most f failures in n | rate R) <= 1 - C (the binomial tail, by
+//   Boost.Math's incomplete beta). For f = 0 that is the success-run formula
+//   n = ln(1 - C) / ln(R) (common practice in reliability demonstration, no
+//   single source), taken with log1p so that R near 1 keeps its digits.
+// - width (RATES.PLAN.WIDTH): the fewest n for which the two-sided interval
+//   of RATES.ONE.LOW/HIGH at the expected count x = round(rate n) has
+//   half-width (high - low) / 2 at most E. Widths of whole counts saw-tooth
+//   in n (Brown, Cai & DasGupta 2001, Stat Sci 16:101), so n is searched
+//   directly: a root search (TOMS 748) on a smooth lower envelope (the narrower of the
+//   intervals at the real counts rate n -+ 1/2: a half-width is largest
+//   mid-range and falls towards either end, so no whole count within 1/2 of
+//   rate n gives a narrower one) finds the first n where the target is
+//   possible, and n is then stepped up one at a time until the interval of
+//   the whole count meets it.
+// - power (RATES.PLAN.POWER): attempts per group to detect rate_1 against
+//   rate_2 with a two-sided test at level alpha: Fleiss, Levin & Paik (2003,
+//   Statistical Methods for Rates and Proportions, 3rd ed., section 4.2),
+//     n' = (z_{alpha/2} sqrt(2 pbar qbar) + z_power sqrt(p1 q1 + p2 q2))^2 / (p1 - p2)^2,
+//   and with the continuity correction of Fleiss, Tytun & Ury (1980,
+//   Biometrics 36:343), n = n'/4 (1 + sqrt(1 + 4 / (n' |p1 - p2|)))^2. Each
+//   inverts exactly the normal approximation to the power of the uncorrected
+//   or corrected test, so the smallest whole n is the ceiling.
+// - ahead (RATES.PLAN.AHEAD): the fewest further attempts m of a group, all
+//   successful, after which P(its rate > the other group's) reaches the
+//   confidence (bayes::ahead). The probability rises with m, so m is found by
+//   doubling, then bisection.
+//
+// Every answer is capped at max_attempts; an answer beyond it, or a target
+// no number of attempts meets, is unreachable_target (Err:523), found before
+// any long search.
+#pragma once
+
+#include <cstdint>
+#include <optional>
+
+#include "tallyrates/bayes/law.hpp"
+#include "tallyrates/pairs/one_rate.hpp"
+
+namespace tallyrates::planning {
+
+inline constexpr double max_attempts = 1e9;
+
+// RATES.PLAN.DEMO. rate in (0, 1] (1 is unreachable), confidence in (0, 1).
+std::int64_t demonstration(double rate, double confidence, std::int64_t failures);
+
+// Half-width of the interval of RATES.ONE.LOW/HIGH for round(rate n)
+// successes in n attempts.
+double half_width(double rate, std::int64_t n, double level, one_rate::method how);
+// RATES.PLAN.WIDTH. rate in [0, 1], half_width in (0, 1) (0 is unreachable).
+std::int64_t width(double rate, double half_width, double level, one_rate::method how);
+
+enum class correction { none, continuity };
+// What a cell holding TRUE or FALSE passes (1 or 0); other numbers are refused.
+correction correction_from_number(double value);
+// RATES.PLAN.POWER: attempts per group. Rates in [0, 1] and different,
+// power and alpha in (0, 1) (power 1 is unreachable).
+std::int64_t power(double rate_1, double rate_2, double power, double alpha, correction how);
+// The power the formula gives at n per group (for tests and the docs).
+double power_at(double rate_1, double rate_2, double n, double alpha, correction how);
+
+// RATES.PLAN.AHEAD: further successes of `pilot` until P(rate_pilot >
+// rate_other) >= confidence; 0 when it already is.
+std::int64_t ahead(const bayes::beta_law& pilot, const bayes::beta_law& other, double confidence);
+
+}  // namespace tallyrates::planning

@@ -1,0 +1,56 @@
+// across.cpp - BEST, LOSS and TABLE: every group's chance of being the best
+// and expected loss from one pass over the rate axis (rate_axis.hpp), through
+// the bounded cache; sources in tallyrates/bayes/across.hpp.
+#include "tallyrates/bayes/across.hpp"
+
+#include "bayes/law_math.hpp"
+#include "bayes/rate_axis.hpp"
+
+namespace tallyrates::bayes {
+
+using namespace detail;
+
+namespace {
+
+// One of the two passes, through the cache when there is one.
+across_groups pass(std::span<const beta_law> laws, goal g, detail::answers what, across_cache* cache) {
+    across_key key{{}, g, what == detail::answers::expected ? 1 : 0};
+    if (cache) {
+        for (const auto& l : laws) std::get<0>(key).insert(std::get<0>(key).end(), {l.a, l.b});
+        if (auto hit = cache->find(key)) return *hit;
+    }
+    auto result = detail::compare_all(laws, g, detail::for_probability, what);
+    if (cache) cache->put(key, result);
+    return result;
+}
+
+}  // namespace
+
+across_groups across(std::span<const beta_law> laws, goal g, across_cache* cache) {
+    auto out = pass(laws, g, detail::answers::expected, cache);
+    out.best = pass(laws, g, detail::answers::every_best, cache).best;
+    return out;
+}
+
+double best(std::span<const beta_law> laws, std::size_t i, goal g, across_cache* cache) {
+    check_groups(laws.size(), max_groups_best, "The probability of being the best");
+    return pass(laws, g, detail::answers::every_best, cache).best.at(i);
+}
+
+double loss(std::span<const beta_law> laws, std::size_t i, goal g, across_cache* cache) {
+    check_groups(laws.size(), max_groups_best, "The expected loss");
+    return pass(laws, g, detail::answers::expected, cache).loss.at(i);
+}
+
+std::vector<summary_row> summary(const counts& c, double level, goal g, prior p, across_cache* cache) {
+    const auto laws = posteriors(c, p);
+    check_groups(laws.size(), max_groups_table, "The posterior table");
+    const auto answers = across(laws, g, cache);  // every row's P(best) and loss: the cells' own pass
+    std::vector<summary_row> rows;
+    for (std::size_t k = 0; k < laws.size(); ++k)
+        rows.push_back({c.groups()[k].position, mean(laws[k]), credible(laws[k], level, kind::central),
+                        answers.best[k], answers.loss[k]});
+    return rows;
+}
+
+}  // namespace tallyrates::bayes
