@@ -35,10 +35,10 @@
 #include <boost/math/distributions/binomial.hpp>
 #include <cmath>
 #include <numbers>
-#include <thread>
 
 #include "detail/hypergeometric.hpp"
 #include "detail/random.hpp"
+#include "detail/threads.hpp"
 #include "detail/terms.hpp"
 #include "tallyrates/core/errors.hpp"
 #include "tallyrates/omnibus/monte_carlo.hpp"
@@ -279,14 +279,9 @@ tally run_all(const table& t, ordering o, std::int64_t draws, std::uint64_t seed
     std::vector<tally> part(threads);
     shared_work work;
     work.cap = work_cap;
-    auto worker = [&](unsigned id) { part[id] = run_blocks(t, terms, thr, draws, seed, id, threads, work); };
-    if (threads == 1) {
-        worker(0);
-    } else {
-        std::vector<std::thread> pool;
-        for (unsigned id = 0; id < threads; ++id) pool.emplace_back(worker, id);
-        for (auto& th : pool) th.join();
-    }
+    detail::on_threads(threads, threads, [&](std::size_t id) {
+        part[id] = run_blocks(t, terms, thr, draws, seed, static_cast<unsigned>(id), threads, work);
+    });
     tally sum;
     for (const auto& p : part) {
         sum.extreme += p.extreme;
