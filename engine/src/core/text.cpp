@@ -15,6 +15,15 @@ std::string format_number(double v) {
     return buf;
 }
 
+std::string format_grouped(std::int64_t v) {
+    std::string digits = std::to_string(v < 0 ? -v : v), out;
+    for (std::size_t k = 0; k < digits.size(); ++k) {
+        if (k > 0 && (digits.size() - k) % 3 == 0) out += ',';
+        out += digits[k];
+    }
+    return v < 0 ? "-" + out : out;
+}
+
 std::string format_short(double v) {
     if (std::isfinite(v) && v == std::floor(v) && std::fabs(v) < 1e15) return format_number(v);
     char buf[64];

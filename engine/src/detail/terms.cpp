@@ -7,6 +7,7 @@
 #include <cmath>
 
 #include "tallyrates/core/errors.hpp"
+#include "tallyrates/core/rules.hpp"
 #include "tallyrates/core/text.hpp"
 
 namespace tallyrates::detail {
@@ -95,9 +96,9 @@ double observed_total(const table& t, ordering o) {
 }
 
 double extreme_threshold(double observed, ordering o) {
-    if (o == ordering::probability) return observed - 1e-7;
+    if (o == ordering::probability) return observed - tie_tolerance;
     // The 1e-12 floor keeps tied tables whose G^2 rounds a hair below 0.
-    return observed * (1.0 - 1e-7) - 1e-12;
+    return observed * (1.0 - tie_tolerance) - 1e-12;
 }
 
 }  // namespace tallyrates::detail

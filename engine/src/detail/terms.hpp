@@ -42,7 +42,7 @@ struct term_row {
 };
 // Values the rows hold: the sum of min(n, S, F) + 1 over the groups.
 double term_values(const table& t);
-// At most this many (48 MB): part of every call's memory budget (issue 11).
+// At most this many (48 MB): part of every call's memory budget.
 inline constexpr double max_term_values = 6e6;
 // budget_exceeded when the rows would pass max_term_values.
 std::vector<term_row> term_tables(const table& t, ordering o);

@@ -18,7 +18,7 @@
 // Work unit: about 8 ns; a variate drawn counts 8, a table entry built 4, a
 // term computed 2 (16 for the probability ordering).
 //
-// Bounds (issue 11): before anything is built, the run is planned from the
+// Bounds: before anything is built, the run is planned from the
 // counts alone: the term tables (at most detail::max_term_values values),
 // the variates, and the cumulative tables, built once per (group, successes
 // placed) visited while they fit the per-thread cache of 2,000,000 values,
@@ -303,19 +303,20 @@ monte_carlo_outcome monte_carlo_p(const table& t, ordering o, std::int64_t draws
                               " values for counts this large, more than memory allows; counts this large suit "
                               "the chi-square route.");
     // Refusals foreseen from the plan, before anything is built: the
-    // automatic route needs at least 1,000 draws within its cap.
-    // (Fitted to the work, the plan is made for the 1,000 draws it must reach.)
-    const double planned = fit_to_work ? 1000.0 : static_cast<double>(draws);
+    // automatic route needs at least min_draws draws within its cap.
+    // (Fitted to the work, the plan is made for the min_draws it must reach.)
+    const double planned = static_cast<double>(fit_to_work ? min_draws : draws);
     const plan p = plan_of(t, o, planned);
     if (fit_to_work && p.total(planned) > cap)
-        throw budget_exceeded("Monte Carlo cannot make 1,000 draws within the time budget for counts this large.");
+        throw budget_exceeded("Monte Carlo cannot make " + format_grouped(min_draws) +
+                              " draws within the time budget for counts this large.");
     if (!fit_to_work && p.total(planned) > cap) {
         const double fit = std::floor(p.draws_within(cap));
         throw budget_exceeded("Monte Carlo with " + format_number(static_cast<double>(draws)) + " draws over " +
                               std::to_string(t.groups()) + " groups needs about " +
                               format_number(p.total(static_cast<double>(draws))) + " steps, more than the cap of " +
                               format_number(cap) + " (about 5 s)" +
-                              (fit >= 1000 ? "; about " + format_number(fit) + " draws fit" : "") + ".");
+                              (fit >= static_cast<double>(min_draws) ? "; about " + format_number(fit) + " draws fit" : "") + ".");
     }
     if (t.all_alike()) {
         // Only one table has these margins: every draw equals the observed one.
@@ -330,7 +331,7 @@ monte_carlo_outcome monte_carlo_p(const table& t, ordering o, std::int64_t draws
         out.work = sum.work;
         if (fit_to_work) {
             out.draws = draws = sum.done;
-            if (draws < 1000)
+            if (draws < min_draws)
                 throw budget_exceeded("Monte Carlo fits only " + format_number(static_cast<double>(draws)) +
                                       " draws into the time budget for counts this large.");
         } else if (sum.done < draws) {

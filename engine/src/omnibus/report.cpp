@@ -37,7 +37,7 @@ std::vector<report_row> blank_rows() {
             {"why", {}},
             {"groups compared", {}},
             {"smallest expected count", {}},
-            {"expected counts below 5", {}},
+            {"expected counts below " + format_number(omnibus::min_expected_count), {}},
             // Rows 8 to 10 belong to the route: blank unless it fills them.
             {"", {}},
             {"", {}},

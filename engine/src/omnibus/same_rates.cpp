@@ -34,9 +34,14 @@ ordering ordering_of(method m) {
     }
 }
 
-std::string expected_phrase(const expected_summary& e) {
+// "3 of 8 expected counts are below 5".
+std::string below_phrase(const expected_summary& e) {
     return std::to_string(e.below_five) + " of " + std::to_string(e.cells) + " expected counts " +
-           (e.below_five == 1 ? "is" : "are") + " below 5, the smallest " + format_short(e.smallest);
+           (e.below_five == 1 ? "is" : "are") + " below " + format_number(min_expected_count);
+}
+
+std::string expected_phrase(const expected_summary& e) {
+    return below_phrase(e) + ", the smallest " + format_short(e.smallest);
 }
 
 void check_draws(std::int64_t draws, const limits& caps) {
@@ -70,10 +75,10 @@ result chi_square(result& r, route used, std::string why) {
 // "exact", "exact-lr", "exact-prob" asked by name: the answer, or a refusal
 // with certified bounds from a coarse pass where one fits. The coarse pass
 // merges partial values within 1 % of the observed statistic and gets a
-// quarter of the cap, so a refusal costs at most 1.25 caps. Measured on
-// 2026-12-02: on the unequal 2 x 12 table of N = 500 (bench_exact) a 1 % grid
-// needs 9-25 times less work than the exact one, on tables a tenth as costly
-// 1-2.7 times; a 0.1 % grid needs at most 1.4 times less.
+// quarter of the cap, so a refusal costs at most 1.25 caps. On the unequal
+// 2 x 12 table of N = 500 (bench_exact) a 1 % grid needs 9-25 times less
+// work than the exact one, on tables a tenth as costly 1-2.7 times; a 0.1 %
+// grid needs at most 1.4 times less.
 result exact_as_asked(result r, const table& t, const options& opt) {
     r.used = route::exact;
     r.has_exact = true;
@@ -105,14 +110,14 @@ result monte_carlo_as_asked(result r, const table& t, const options& opt) {
     return r;
 }
 
-// "auto": chi-square when every expected count is at least 5; else exact
+// "auto": chi-square when every expected count is at least min_expected_count; else exact
 // within its work cap; else Monte Carlo with the draws that fit its cap;
 // else (counts too large for both) chi-square with a caution.
 result automatic(result r, const table& t, const options& opt) {
-    if (r.expected.smallest >= 5.0)
+    if (r.expected.smallest >= min_expected_count)
         return chi_square(r, route::pearson,
-                          "Every expected count is at least 5, the smallest " + format_short(r.expected.smallest) +
-                              ", so the chi-square approximation is used.");
+                          "Every expected count is at least " + format_number(min_expected_count) + ", the smallest " +
+                              format_short(r.expected.smallest) + ", so the chi-square approximation is used.");
     r.has_exact = true;
     r.exact = exact_p(t, ordering::pearson, opt.caps.auto_exact_work, opt.caps.auto_max_buckets, 1e-9, exact_threads());
     if (r.exact.complete) {
@@ -187,16 +192,16 @@ std::string auto_route_advice(const counts& c, result_cache* cache) {
     // Runs the automatic route itself, so the advice can never disagree with it.
     const result r = same_rates(c, options{}, cache);
     if (r.used == route::all_alike) return "every group shows the same rate, so p = 1";
-    if (r.expected.smallest >= 5.0)
-        return "every expected count is at least 5, so method \"auto\" uses the chi-square approximation";
+    if (r.expected.smallest >= min_expected_count)
+        return "every expected count is at least " + format_number(min_expected_count) +
+               ", so method \"auto\" uses the chi-square approximation";
     const char* taken = r.used == route::exact ? "the exact conditional test"
                         : r.used == route::monte_carlo
                             ? "Monte Carlo, since the exact test does not fit the time budget"
                             : "the chi-square approximation, since nothing else fits the time budget: treat it with "
                               "caution";
-    return "caution: " + std::to_string(r.expected.below_five) + " of " + std::to_string(r.expected.cells) +
-           " expected counts " + (r.expected.below_five == 1 ? "is" : "are") +
-           " below 5, so the chi-square p-value is doubtful; method \"auto\" uses " + taken;
+    return "caution: " + below_phrase(r.expected) + ", so the chi-square p-value is doubtful; method \"auto\" uses " +
+           taken;
 }
 
 }  // namespace tallyrates::omnibus

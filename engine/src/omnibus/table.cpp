@@ -39,7 +39,7 @@ expected_summary expected_counts(const table& t) {
                 e.smallest_position = t.position.empty() ? g + 1 : t.position[g];
                 e.smallest_is_failures = failures == 1;
             }
-            if (E[failures] < 5.0) ++e.below_five;
+            if (E[failures] < min_expected_count) ++e.below_five;
         }
     }
     return e;

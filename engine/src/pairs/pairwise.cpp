@@ -11,6 +11,7 @@
 #include "detail/hypergeometric.hpp"
 #include "tallyrates/core/arguments.hpp"
 #include "tallyrates/core/errors.hpp"
+#include "tallyrates/core/rules.hpp"
 #include "tallyrates/core/text.hpp"
 
 namespace tallyrates::pairwise {
@@ -125,7 +126,7 @@ double fisher_p(const group& a, const group& b) {
     std::vector<double> pmf;
     const auto kept = detail::hypergeometric_pmf(big_n, k, a.attempts, pmf, 1e-300);
     if (a.successes < kept.first || a.successes > kept.last) return 0.0;
-    const double observed = pmf[static_cast<std::size_t>(a.successes - kept.first)] * (1 + 1e-7);
+    const double observed = pmf[static_cast<std::size_t>(a.successes - kept.first)] * (1 + tie_tolerance);
     double p = 0.0;
     for (double v : pmf)  // ascending x: a fixed order, reproducible
         if (v <= observed) p += v;

@@ -2,6 +2,7 @@
 // the report's "why" row).
 #pragma once
 
+#include <cstdint>
 #include <string>
 
 namespace tallyrates {
@@ -14,6 +15,10 @@ std::string format_number(double v);
 // A computed quantity in a sentence: 3 significant digits (0.0426, 1.23e-21),
 // whole numbers in full.
 std::string format_short(double v);
+
+// A whole number with thousands separators, as rules are quoted in
+// sentences: 1000 -> "1,000".
+std::string format_grouped(std::int64_t v);
 
 // "1 group" / "3 groups".
 std::string count_of(std::size_t n, const char* singular, const char* plural);

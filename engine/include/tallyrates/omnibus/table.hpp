@@ -33,11 +33,15 @@ struct table {
 // invalid_input unless at least two groups have attempts.
 table table_of(const counts& c);
 
+// The chi-square approximation is trusted when every expected count is at
+// least this (Cochran 1954, Biometrics 10:417; common practice).
+inline constexpr double min_expected_count = 5;
+
 struct expected_summary {
     double smallest = 0;           // smallest expected count over the 2 x G cells
     std::size_t smallest_position = 0;  // the group it belongs to (position in the range)
     bool smallest_is_failures = false;  // expected failures rather than successes
-    std::size_t below_five = 0;    // cells with expected count < 5
+    std::size_t below_five = 0;    // cells with expected count < min_expected_count
     std::size_t cells = 0;         // 2 x G
 };
 expected_summary expected_counts(const table& t);

@@ -66,6 +66,13 @@ namespace tallyrates::omnibus {
 
 namespace exact_network {
 
+namespace {
+
+// When the back pass starts (takes_next).
+constexpr double back_bounds_factor = 1.5, front_levels_factor = 2;
+
+}  // namespace
+
 bool network::run() {
     if (!prepare()) return false;
     const std::size_t G = t_.groups();
@@ -150,20 +157,20 @@ double network::level_cost(const pass& p) const {
 // shared rate its lists stay small (its bounds tighten as fewer groups
 // remain), and a back pass costs more to start than it saves. The back
 // pass starts once the front pass's remaining levels, at its present list
-// size, would cost more than 1.5 times the back pass's bounds (building
-// them, and the laws of its nodes that carry only surely extreme mass)
-// plus twice the front levels so far (the back pass's first levels mirror
-// them, at about twice the cost, as its nodes also carry surely extreme
-// mass). Both factors measured on 2 x 12 tables near one shared rate,
-// N = 120 to 420 (2026-12-02): N = 150, 31 us alone against 48 us with
-// both passes; N = 300 (G^2), 306 us with both against 479 us alone.
+// size, would cost more than back_bounds_factor times the back pass's bounds
+// (building them, and the laws of its nodes that carry only surely extreme
+// mass) plus front_levels_factor times the front levels so far (the back
+// pass's first levels mirror them, at about twice the cost, as its nodes
+// also carry surely extreme mass). Both factors measured on 2 x 12 tables
+// near one shared rate, N = 120 to 420: N = 150, 31 us alone against 48 us
+// with both passes; N = 300 (G^2), 306 us with both against 479 us alone.
 // Once both have started, the one whose next level reads fewer buckets
 // takes the group, so the halves end balanced by measured sizes.
 pass& network::takes_next(pass& front, pass& back, double front_spent) const {
     if (back.k > 0) return level_cost(front) <= level_cost(back) ? front : back;
     if (front.k == 0) return front;
     const double alone = static_cast<double>(front.cur.total()) * ahead_[front.k];
-    return alone > 1.5 * back_bounds_ + 2 * front_spent ? back : front;
+    return alone > back_bounds_factor * back_bounds_ + front_levels_factor * front_spent ? back : front;
 }
 
 // Small groups first keeps early levels narrow; the p-value does not depend
