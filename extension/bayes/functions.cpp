@@ -18,7 +18,8 @@ namespace {
 
 bayes::beta_law law_of(const caller& document, const cells& successes, const cells& attempts, double i,
                        const Any& prior_a, const Any& prior_b) {
-    return bayes::posterior(convert::counts_of(document, successes, attempts), i, prior_of(prior_a, prior_b));
+    const auto c = convert::counts_of(document, successes, attempts);
+    return bayes::posterior(c.at_position(i, "i"), prior_of(prior_a, prior_b));
 }
 
 interval credible_of(const caller& document, const cells& successes, const cells& attempts, double i,
@@ -29,16 +30,20 @@ interval credible_of(const caller& document, const cells& successes, const cells
     return bayes::credible(law, convert::number(level, "level").value_or(0.95), how);
 }
 
-bayes::goal goal_of(const Any& goal) {
-    return arguments::keyword_or(convert::word(goal, "goal"), bayes::goal::high, keywords::goal, "goal");
+// The posteriors of the groups at positions i and j, which must differ.
+std::pair<bayes::beta_law, bayes::beta_law> two_laws(const caller& document, const cells& successes,
+                                                     const cells& attempts, double i, double j, const Any& prior_a,
+                                                     const Any& prior_b) {
+    const auto c = convert::counts_of(document, successes, attempts);
+    const auto p = prior_of(prior_a, prior_b);
+    const group& a = c.at_position(i, "i");
+    const group& b = c.at_position(j, "j");
+    pairwise::distinct(a, b);
+    return {bayes::posterior(a, p), bayes::posterior(b, p)};
 }
 
-// Index among the non-blank groups of the group at position i.
-std::size_t index_of(const counts& c, double i) {
-    const group& g = c.at_position(i, "i");
-    std::size_t k = 0;
-    while (c.groups()[k].position != g.position) ++k;
-    return k;
+bayes::goal goal_of(const Any& goal) {
+    return arguments::keyword_or(convert::word(goal, "goal"), bayes::goal::high, keywords::goal, "goal");
 }
 
 }  // namespace
@@ -79,10 +84,8 @@ double rates::postNext(const caller& document, const cells& successes, const cel
 double rates::postAhead(const caller& document, const cells& successes, const cells& attempts, double i, double j,
                         const Any& prior_a, const Any& prior_b) {
     return guarded([&] {
-        const auto c = convert::counts_of(document, successes, attempts);
-        const auto p = prior_of(prior_a, prior_b);
-        pairwise::distinct(c.at_position(i, "i"), c.at_position(j, "j"));
-        return finite(bayes::ahead(bayes::posterior(c, i, p), bayes::posterior(c, j, p)));
+        const auto [x, y] = two_laws(document, successes, attempts, i, j, prior_a, prior_b);
+        return finite(bayes::ahead(x, y));
     });
 }
 
@@ -90,11 +93,8 @@ namespace {
 
 interval difference_of(const caller& document, const cells& successes, const cells& attempts, double i, double j,
                        const Any& level, const Any& prior_a, const Any& prior_b) {
-    const auto c = convert::counts_of(document, successes, attempts);
-    const auto p = prior_of(prior_a, prior_b);
-    pairwise::distinct(c.at_position(i, "i"), c.at_position(j, "j"));
-    return bayes::difference(bayes::posterior(c, i, p), bayes::posterior(c, j, p),
-                             convert::number(level, "level").value_or(0.95));
+    const auto [x, y] = two_laws(document, successes, attempts, i, j, prior_a, prior_b);
+    return bayes::difference(x, y, convert::number(level, "level").value_or(0.95));
 }
 
 }  // namespace
@@ -131,7 +131,7 @@ double rates::postBest(const caller& document, const cells& successes, const cel
     return guarded([&] {
         const auto c = convert::counts_of(document, successes, attempts);
         return finite(
-            bayes::best(bayes::posteriors(c, prior_of(prior_a, prior_b)), index_of(c, i), goal_of(goal), &across_cache_));
+            bayes::best(bayes::posteriors(c, prior_of(prior_a, prior_b)), c.index_of(c.at_position(i, "i")), goal_of(goal), &across_cache_));
     });
 }
 
@@ -140,7 +140,7 @@ double rates::postLoss(const caller& document, const cells& successes, const cel
     return guarded([&] {
         const auto c = convert::counts_of(document, successes, attempts);
         return finite(
-            bayes::loss(bayes::posteriors(c, prior_of(prior_a, prior_b)), index_of(c, i), goal_of(goal), &across_cache_));
+            bayes::loss(bayes::posteriors(c, prior_of(prior_a, prior_b)), c.index_of(c.at_position(i, "i")), goal_of(goal), &across_cache_));
     });
 }
 

@@ -80,14 +80,20 @@ array problem_array(const std::string& problem) {
 }  // namespace
 
 double rates::diff(const caller& document, const cells& successes, const cells& attempts, double i, double j) {
-    return guarded([&] { return finite(pairwise::difference(convert::counts_of(document, successes, attempts), i, j)); });
+    return guarded([&] {
+        const auto c = convert::counts_of(document, successes, attempts);
+        const auto [a, b] = pairwise::pair_at(c, i, j);
+        return finite(pairwise::difference(a, b));
+    });
 }
 
 double rates::diffLow(const caller& document, const cells& successes, const cells& attempts, double i, double j,
                       const Any& level, const Any& method, const Any& adjust, const Any& family) {
     return guarded([&] {
         const auto o = interval_options(level, method, adjust, family);
-        return finite(pairwise::difference_interval(convert::counts_of(document, successes, attempts), i, j, o).low);
+        const auto c = convert::counts_of(document, successes, attempts);
+        const auto [a, b] = pairwise::pair_at(c, i, j);
+        return finite(pairwise::difference_interval(c, a, b, o).low);
     });
 }
 
@@ -95,7 +101,9 @@ double rates::diffHigh(const caller& document, const cells& successes, const cel
                        const Any& level, const Any& method, const Any& adjust, const Any& family) {
     return guarded([&] {
         const auto o = interval_options(level, method, adjust, family);
-        return finite(pairwise::difference_interval(convert::counts_of(document, successes, attempts), i, j, o).high);
+        const auto c = convert::counts_of(document, successes, attempts);
+        const auto [a, b] = pairwise::pair_at(c, i, j);
+        return finite(pairwise::difference_interval(c, a, b, o).high);
     });
 }
 
@@ -106,7 +114,9 @@ double rates::pairP(const caller& document, const cells& successes, const cells&
         o.adjust = arguments::keyword_or(convert::word(adjust, "adjust"), o.adjust, keywords::p_adjust, "adjust");
         o.how = arguments::keyword_or(convert::word(method, "method"), o.how, keywords::pair_test, "method");
         o.comparisons = arguments::keyword_or(convert::word(family, "family"), o.comparisons, keywords::family, "family");
-        return finite(pairwise::same_rate_p(convert::counts_of(document, successes, attempts), i, j, o, &pairs_cache_));
+        const auto c = convert::counts_of(document, successes, attempts);
+        const auto [a, b] = pairwise::pair_at(c, i, j);
+        return finite(pairwise::same_rate_p(c, a, b, o, &pairs_cache_));
     });
 }
 
@@ -130,20 +140,26 @@ array rates::pairs(const caller& document, const cells& successes, const cells& 
     });
 }
 
+namespace {
+
+interval one_bounds(const caller& document, const cells& successes, const cells& attempts, double i, const Any& level,
+                    const Any& method) {
+    const double lv = level_of(level);
+    const auto how = keywords::one_rate_method_or_wilson(convert::word(method, "method"));
+    const auto c = convert::counts_of(document, successes, attempts);
+    return one_rate::bounds(c.with_attempts_at(i, "i"), lv, how);
+}
+
+}  // namespace
+
 double rates::oneLow(const caller& document, const cells& successes, const cells& attempts, double i,
                      const Any& level, const Any& method) {
-    return guarded([&] {
-        const auto c = convert::counts_of(document, successes, attempts);
-        return finite(one_rate::bounds(c, i, level_of(level), keywords::one_rate_method_or_wilson(convert::word(method, "method"))).low);
-    });
+    return guarded([&] { return finite(one_bounds(document, successes, attempts, i, level, method).low); });
 }
 
 double rates::oneHigh(const caller& document, const cells& successes, const cells& attempts, double i,
                       const Any& level, const Any& method) {
-    return guarded([&] {
-        const auto c = convert::counts_of(document, successes, attempts);
-        return finite(one_rate::bounds(c, i, level_of(level), keywords::one_rate_method_or_wilson(convert::word(method, "method"))).high);
-    });
+    return guarded([&] { return finite(one_bounds(document, successes, attempts, i, level, method).high); });
 }
 
 }  // namespace tallyrates::uno

@@ -52,9 +52,11 @@ double rates::planAhead(const caller& document, const cells& successes, const ce
                         double confidence, const Any& prior_a, const Any& prior_b) {
     return guarded([&] {
         const auto c = convert::counts_of(document, successes, attempts);
-        pairwise::distinct(c.at_position(i, "i"), c.at_position(j, "j"));
+        const group& a = c.at_position(i, "i");
+        const group& b = c.at_position(j, "j");
+        pairwise::distinct(a, b);
         const auto p = prior_of(prior_a, prior_b);
-        return attempts_of(planning::ahead(bayes::posterior(c, i, p), bayes::posterior(c, j, p), confidence));
+        return attempts_of(planning::ahead(bayes::posterior(a, p), bayes::posterior(b, p), confidence));
     });
 }
 

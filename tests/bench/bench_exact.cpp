@@ -22,7 +22,7 @@
 #include <string>
 #include <vector>
 
-#include "../engine/golden_cases.hpp"
+#include "../engine/omnibus/golden_cases.hpp"
 #include "tallyrates/core/errors.hpp"
 #include "tallyrates/omnibus/same_rates.hpp"
 

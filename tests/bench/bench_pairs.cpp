@@ -5,10 +5,13 @@
 
 #include "tallyrates/pairs/one_rate.hpp"
 #include "tallyrates/pairs/pairwise.hpp"
+#include "cells.hpp"
 
 using namespace tallyrates;
 
 namespace {
+
+namespace cell = tallyrates::testing::cell;
 
 // Twelve lines of 40 to 1,200 attempts with pass rates from 80 % to 100 %:
 // a pilot of a dozen perfect units beside long runs.
@@ -30,7 +33,7 @@ void all_pairs_intervals(benchmark::State& state, pairwise::interval_method how)
     o.adjust = adjust::simultaneous::bonferroni;
     for (auto _ : state)
         for (double i = 1; i <= 12; ++i)
-            for (double j = i + 1; j <= 12; ++j) benchmark::DoNotOptimize(pairwise::difference_interval(c, i, j, o));
+            for (double j = i + 1; j <= 12; ++j) benchmark::DoNotOptimize(cell::difference_interval(c, i, j, o));
 }
 void BM_66_pairs_newcombe(benchmark::State& s) { all_pairs_intervals(s, pairwise::interval_method::newcombe); }
 void BM_66_pairs_score(benchmark::State& s) { all_pairs_intervals(s, pairwise::interval_method::score); }
@@ -68,7 +71,7 @@ void BM_cell_diff_low_score(benchmark::State& state) {
     const auto c = twelve_lines();
     pairwise::interval_options o;
     o.how = pairwise::interval_method::score;
-    for (auto _ : state) benchmark::DoNotOptimize(pairwise::difference_interval(c, 1, 12, o));
+    for (auto _ : state) benchmark::DoNotOptimize(cell::difference_interval(c, 1, 12, o));
 }
 // A Holm-adjusted exact p for one pair: every pair's p of the family, or,
 // with a cache, a look-up after the first call.
@@ -77,7 +80,7 @@ void cell_pair_p_holm_exact(benchmark::State& state, pairwise::p_cache* cache) {
     pairwise::test_options o;
     o.how = pairwise::test_method::exact;
     o.adjust = adjust::p_values::holm;
-    for (auto _ : state) benchmark::DoNotOptimize(pairwise::same_rate_p(c, 1, 12, o, cache));
+    for (auto _ : state) benchmark::DoNotOptimize(cell::same_rate_p(c, 1, 12, o, cache));
 }
 void BM_cell_pair_p_holm_exact(benchmark::State& state) { cell_pair_p_holm_exact(state, nullptr); }
 void BM_cell_pair_p_holm_exact_cached(benchmark::State& state) {

@@ -66,10 +66,16 @@ prior checked(prior p) {
     return p;
 }
 
-beta_law posterior(const counts& c, double i, prior p) {
+beta_law posterior(const group& g, prior p) {
     p = checked(p);
-    const group& g = c.at_position(i, "i");
     return {p.a + static_cast<double>(g.successes), p.b + static_cast<double>(g.attempts - g.successes)};
+}
+
+std::vector<beta_law> posteriors(const counts& c, prior p) {
+    p = checked(p);
+    std::vector<beta_law> out;
+    for (const auto& g : c.groups()) out.push_back(posterior(g, p));
+    return out;
 }
 
 double mean(const beta_law& law) { return law.a / (law.a + law.b); }
@@ -105,14 +111,6 @@ double next_at_least(const beta_law& law, std::int64_t m, std::int64_t k) {
     // comparison of two laws that `ahead` computes (a finite sum of Cook 2005
     // or one integral, never a sum over the m further attempts).
     return ahead(law, {static_cast<double>(k), static_cast<double>(m - k + 1)});
-}
-
-std::vector<beta_law> posteriors(const counts& c, prior p) {
-    p = checked(p);
-    std::vector<beta_law> out;
-    for (const auto& g : c.groups())
-        out.push_back({p.a + static_cast<double>(g.successes), p.b + static_cast<double>(g.attempts - g.successes)});
-    return out;
 }
 
 std::optional<double> density(const beta_law& law, double x) {

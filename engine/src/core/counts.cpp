@@ -136,4 +136,13 @@ const group& counts::at_position(double position, const char* argument) const {
                         p);
 }
 
+const group& counts::with_attempts_at(double position, const char* argument) const {
+    const group& g = at_position(position, argument);
+    if (g.attempts == 0)
+        throw invalid_input(std::string("The argument ") + argument + " names position " +
+                                std::to_string(g.position) + ", which has no attempts yet.",
+                            g.position);
+    return g;
+}
+
 }  // namespace tallyrates

@@ -17,10 +17,10 @@ std::string smallest_expected_place(const counts& c, const omnibus::expected_sum
 
 namespace {
 
-// The rules the pairs and one-rate functions apply to i and j (pairwise.cpp).
+// The rules the pairs and one-rate functions apply to i and j (counts.hpp, pairwise.hpp).
 void check_positions(const counts& c, const positions_asked& asked) {
-    const group* a = asked.i ? &pairwise::group_with_attempts(c, *asked.i, "i") : nullptr;
-    const group* b = asked.j ? &pairwise::group_with_attempts(c, *asked.j, "j") : nullptr;
+    const group* a = asked.i ? &c.with_attempts_at(*asked.i, "i") : nullptr;
+    const group* b = asked.j ? &c.with_attempts_at(*asked.j, "j") : nullptr;
     if (a && b) pairwise::distinct(*a, *b);
 }
 

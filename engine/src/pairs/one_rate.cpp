@@ -7,7 +7,6 @@
 #include <cmath>
 
 #include "tallyrates/core/arguments.hpp"
-#include "tallyrates/pairs/pairwise.hpp"
 
 namespace tallyrates::one_rate {
 
@@ -58,8 +57,7 @@ interval bounds_at(double xd, double nd, double level, method how) {
     return {};
 }
 
-interval bounds(const counts& c, double i, double level, method how) {
-    const group& g = pairwise::group_with_attempts(c, i, "i");
+interval bounds(const group& g, double level, method how) {
     return bounds(g.successes, g.attempts, arguments::level(level, "level"), how);
 }
 

@@ -150,18 +150,14 @@ void distinct(const group& a, const group& b) {
                             a.position);
 }
 
-const group& group_with_attempts(const counts& c, double pos, const char* argument) {
-    const group& g = c.at_position(pos, argument);
-    if (g.attempts == 0)
-        throw invalid_input(std::string("The argument ") + argument + " names position " +
-                                std::to_string(g.position) + ", which has no attempts yet.",
-                            g.position);
-    return g;
+two_groups pair_at(const counts& c, double i, double j) {
+    const group& a = c.with_attempts_at(i, "i");
+    const group& b = c.with_attempts_at(j, "j");
+    distinct(a, b);
+    return {a, b};
 }
 
-double difference(const counts& c, double i, double j) {
-    const group& a = group_with_attempts(c, i, "i");
-    const group& b = group_with_attempts(c, j, "j");
+double difference(const group& a, const group& b) {
     distinct(a, b);  // as every other function of a pair: i = j is a mistake, not a difference of 0
     return a.rate() - b.rate();
 }
@@ -189,13 +185,19 @@ std::size_t family_size(const counts& c, family f) {
     return std::max<std::size_t>(1, m);
 }
 
-interval difference_interval(const counts& c, double i, double j, const interval_options& o) {
-    const group& a = group_with_attempts(c, i, "i");
-    const group& b = group_with_attempts(c, j, "j");
-    distinct(a, b);
+namespace {
+
+// The level of each comparison of the family (checked once for a table).
+double level_each(const counts& c, const interval_options& o) {
     const double level = arguments::level(o.level, "level");
-    const double each = adjust::per_comparison_level(level, family_size(c, o.comparisons), o.adjust);
-    return difference_interval(a, b, each, o.how);
+    return adjust::per_comparison_level(level, family_size(c, o.comparisons), o.adjust);
+}
+
+}  // namespace
+
+interval difference_interval(const counts& c, const group& a, const group& b, const interval_options& o) {
+    distinct(a, b);
+    return difference_interval(a, b, level_each(c, o), o.how);
 }
 
 namespace {
@@ -243,9 +245,7 @@ std::vector<double> all_pairs_p(const counts& c, test_method how, p_cache* cache
     return p;
 }
 
-double same_rate_p(const counts& c, double i, double j, const test_options& o, p_cache* cache) {
-    const group& a = group_with_attempts(c, i, "i");
-    const group& b = group_with_attempts(c, j, "j");
+double same_rate_p(const counts& c, const group& a, const group& b, const test_options& o, p_cache* cache) {
     distinct(a, b);
     if (o.adjust == adjust::p_values::none) return same_rate_p(a, b, o.how);
     const auto groups = c.with_attempts();
@@ -277,11 +277,13 @@ std::vector<pair_row> pairs_table(const counts& c, const table_options& o, p_cac
     const auto raw = all_pairs_p(c, test_method::score, cache);
     const auto adjusted = adjust::adjusted(raw, o.p);
     const auto pairs = pairs_of(groups);
+    // The family and its level once, not per pair: the same values the
+    // single-cell functions compute.
+    const double each = level_each(c, io);
     std::vector<pair_row> rows;
     for (std::size_t k = 0; k < pairs.size(); ++k) {
         const auto [a, b] = pairs[k];
-        const auto i = static_cast<double>(a->position), j = static_cast<double>(b->position);
-        rows.push_back({a->position, b->position, difference(c, i, j), difference_interval(c, i, j, io), raw[k],
+        rows.push_back({a->position, b->position, difference(*a, *b), difference_interval(*a, *b, each, io.how), raw[k],
                         adjusted[k]});
     }
     return rows;

@@ -47,9 +47,9 @@ struct beta_law {
 inline constexpr double min_prior = 0.01, max_prior = 1e6;
 // Checks the prior (both within [min_prior, max_prior]; invalid_input otherwise).
 prior checked(prior p);
-// The posterior of the group at position i (blank rows refused; a group
-// without attempts has the prior as its posterior).
-beta_law posterior(const counts& c, double i, prior p);
+// The posterior of a group of a tally (counts::at_position; a group without
+// attempts has the prior as its posterior).
+beta_law posterior(const group& g, prior p);
 
 double mean(const beta_law& law);
 interval credible(const beta_law& law, double level, kind how);

@@ -77,7 +77,14 @@ public:
 
     // The group at a 1-based position; invalid_input for a blank row or a
     // position outside the range. `argument` names the argument in messages.
+    // A position is checked here once: the engine's functions of one or two
+    // groups take the group handed back, never the cell's value.
     const group& at_position(double position, const char* argument) const;
+    // The same for a group that must have attempts (a frequentist statement
+    // about a group without data is refused).
+    const group& with_attempts_at(double position, const char* argument) const;
+    // Index among groups() of a group this tally handed out.
+    std::size_t index_of(const group& g) const { return static_cast<std::size_t>(&g - groups_.data()); }
 
     // How messages name a group: "position 4" or "position 4, Pilot oven".
     std::string name_of(std::size_t position) const;

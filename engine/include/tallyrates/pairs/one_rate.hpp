@@ -29,8 +29,8 @@ interval bounds(std::int64_t x, std::int64_t n, double level, method how);
 // whole counts).
 interval bounds_at(double x, double n, double level, method how);
 
-// Interval for the group at position i of the tally (which must have
-// attempts); `level` is checked (arguments::level).
-interval bounds(const counts& c, double i, double level, method how);
+// Interval for a group of a tally (counts::with_attempts_at); `level` is
+// checked (arguments::level).
+interval bounds(const group& g, double level, method how);
 
 }  // namespace tallyrates::one_rate

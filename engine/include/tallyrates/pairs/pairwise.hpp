@@ -52,15 +52,22 @@ struct test_options {
     family comparisons = family::all;
 };
 
-// The group at position `pos`, which must have attempts (a frequentist
-// statement about a group without data is refused).
-const group& group_with_attempts(const counts& c, double pos, const char* argument);
+// The functions of a pair take the groups as counts::with_attempts_at hands
+// them back: positions checked once, by the caller.
 
 // invalid_input when a and b are the same group (i = j).
 void distinct(const group& a, const group& b);
 
-// Observed rate_i - rate_j.
-double difference(const counts& c, double i, double j);
+// The groups at positions i and j of the tally, both with attempts and
+// distinct: the checks of every frequentist function of a pair, made once.
+struct two_groups {
+    const group& a;
+    const group& b;
+};
+two_groups pair_at(const counts& c, double i, double j);
+
+// Observed rate_a - rate_b (a and b distinct).
+double difference(const group& a, const group& b);
 
 // ---- two groups, no family ----
 interval difference_interval(const group& a, const group& b, double level, interval_method how);
@@ -69,16 +76,17 @@ double same_rate_p(const group& a, const group& b, test_method how);
 // ---- within the family of comparisons of the tally ----
 // How many comparisons the family holds (at least 1).
 std::size_t family_size(const counts& c, family f);
-// Interval for rate_i - rate_j, simultaneous over the family when asked.
-interval difference_interval(const counts& c, double i, double j, const interval_options& o);
+// Interval for rate_a - rate_b, simultaneous over the family of the tally c
+// when asked.
+interval difference_interval(const counts& c, const group& a, const group& b, const interval_options& o);
 
 // Raw p of every pair of groups with attempts, in the order (1,2), (1,3), ...,
 // (2,3), ... of their positions; cached by exact inputs.
 using p_cache = lru_cache<std::pair<std::vector<std::pair<std::int64_t, std::int64_t>>, test_method>,
                           std::vector<double>>;
 std::vector<double> all_pairs_p(const counts& c, test_method how, p_cache* cache = nullptr);
-// p for rate_i = rate_j, adjusted over the family when asked.
-double same_rate_p(const counts& c, double i, double j, const test_options& o, p_cache* cache = nullptr);
+// p for rate_a = rate_b, adjusted over the family of the tally c when asked.
+double same_rate_p(const counts& c, const group& a, const group& b, const test_options& o, p_cache* cache = nullptr);
 
 // ---- RATES.PAIRS: every pair at once ----
 struct table_options {

@@ -25,6 +25,7 @@
 #include "tallyrates/pairs/pairwise.hpp"
 #include "tallyrates/planning/planning.hpp"
 #include "tallyrates/omnibus/trend.hpp"
+#include "support.hpp"
 
 using namespace tallyrates;
 using tallyrates::testing::csv_fields;
@@ -32,6 +33,8 @@ using tallyrates::testing::fields;
 using tallyrates::testing::split_ints;
 
 namespace {
+
+namespace cell = tallyrates::testing::cell;
 
 struct sweep_row {
     std::string family, name, quantity, source;
@@ -120,24 +123,24 @@ TEST(Sweep, BayesAgainstQuadratureOutsideTheEngine) {
         } else if (what == "ahead") {
             const bayes::prior p{std::stod(f[1]), std::stod(f[2])};
             expect_probability(
-                bayes::ahead(bayes::posterior(c, std::stod(f[3]), p), bayes::posterior(c, std::stod(f[4]), p)), r.value,
+                bayes::ahead(cell::posterior(c, std::stod(f[3]), p), cell::posterior(c, std::stod(f[4]), p)), r.value,
                 r);
         } else if (what == "central_low" || what == "central_high") {
             const bayes::prior p{std::stod(f[1]), std::stod(f[2])};
-            const auto b = bayes::credible(bayes::posterior(c, std::stod(f[3]), p), std::stod(f[4]), bayes::kind::central);
+            const auto b = bayes::credible(cell::posterior(c, std::stod(f[3]), p), std::stod(f[4]), bayes::kind::central);
             expect_within(what == "central_low" ? b.low : b.high, r.value, 1e-10, 1e-8, r);
         } else if (what == "hpd_low" || what == "hpd_high") {
             const bayes::prior p{std::stod(f[1]), std::stod(f[2])};
-            const auto b = bayes::credible(bayes::posterior(c, std::stod(f[3]), p), std::stod(f[4]), bayes::kind::hpd);
+            const auto b = bayes::credible(cell::posterior(c, std::stod(f[3]), p), std::stod(f[4]), bayes::kind::hpd);
             expect_within(what == "hpd_low" ? b.low : b.high, r.value, 1e-10, 0, r);
         } else if (what == "above") {
             const bayes::prior p{std::stod(f[2]), std::stod(f[3])};
-            expect_within(bayes::above(bayes::posterior(c, std::stod(f[4]), p), std::stod(f[5]), goal_of(f[1])), r.value,
+            expect_within(bayes::above(cell::posterior(c, std::stod(f[4]), p), std::stod(f[5]), goal_of(f[1])), r.value,
                           1e-12, 1e-9, r);
         } else if (what == "next") {
             const bayes::prior p{std::stod(f[1]), std::stod(f[2])};
             expect_probability(
-                bayes::next_at_least(bayes::posterior(c, std::stod(f[3]), p), std::stoll(f[4]), std::stoll(f[5])),
+                bayes::next_at_least(cell::posterior(c, std::stod(f[3]), p), std::stoll(f[4]), std::stoll(f[5])),
                 r.value, r);
         } else {
             ADD_FAILURE() << "unknown quantity " << r.quantity;
@@ -160,13 +163,13 @@ TEST(Sweep, PairsAgainstStatsmodelsAndScipy) {
         const std::string& what = f[0];
         const auto c = counts::from_values(r.x, r.n);
         if (what == "one_low" || what == "one_high") {
-            const auto b = one_rate::bounds(c, std::stod(f[2]), std::stod(f[3]), one_method(f[1]));
+            const auto b = cell::one_bounds(c, std::stod(f[2]), std::stod(f[3]), one_method(f[1]));
             expect_within(what == "one_low" ? b.low : b.high, r.value, 1e-10, 1e-9, r);
         } else if (what == "diff_low" || what == "diff_high") {
             pairwise::interval_options o;
             o.level = std::stod(f[4]);
             o.how = diff_method(f[1]);
-            const auto b = pairwise::difference_interval(c, std::stod(f[2]), std::stod(f[3]), o);
+            const auto b = cell::difference_interval(c, std::stod(f[2]), std::stod(f[3]), o);
             // The Miettinen-Nurminen reference is a bisection inside a
             // bisection (generate.py), settled to about 1e-8.
             expect_within(what == "diff_low" ? b.low : b.high, r.value, f[1] == "miettinen-nurminen" ? 5e-8 : 1e-9, 1e-9, r);
@@ -175,17 +178,17 @@ TEST(Sweep, PairsAgainstStatsmodelsAndScipy) {
             o.level = std::stod(f[5]);
             o.adjust = f[1] == "sidak" ? adjust::simultaneous::sidak : adjust::simultaneous::bonferroni;
             o.comparisons = f[2] == "against" ? pairwise::family::against : pairwise::family::all;
-            const auto b = pairwise::difference_interval(c, std::stod(f[3]), std::stod(f[4]), o);
+            const auto b = cell::difference_interval(c, std::stod(f[3]), std::stod(f[4]), o);
             expect_within(what == "diff_low_family" ? b.low : b.high, r.value, 1e-9, 1e-9, r);
         } else if (what == "pair_p_against") {
             pairwise::test_options o;
             o.adjust = adjust_of(f[1]);
             o.comparisons = pairwise::family::against;
-            expect_within(pairwise::same_rate_p(c, std::stod(f[2]), std::stod(f[3]), o), r.value, 1e-14, 1e-8, r);
+            expect_within(cell::same_rate_p(c, std::stod(f[2]), std::stod(f[3]), o), r.value, 1e-14, 1e-8, r);
         } else if (what == "pair_p") {
             pairwise::test_options o;
             o.adjust = adjust_of(f[1]);
-            expect_within(pairwise::same_rate_p(c, std::stod(f[2]), std::stod(f[3]), o), r.value, 1e-14, 1e-8, r);
+            expect_within(cell::same_rate_p(c, std::stod(f[2]), std::stod(f[3]), o), r.value, 1e-14, 1e-8, r);
         } else {
             ADD_FAILURE() << "unknown quantity " << r.quantity;
         }
@@ -246,7 +249,7 @@ TEST(Sweep, PlanningAgainstDirectSearch) {
             // Pilot at position 1, the running line at 2, a prior that need not be whole.
             const auto c = counts::from_values(r.x, r.n);
             const bayes::prior p{std::stod(f[1]), std::stod(f[2])};
-            got = planning::ahead(bayes::posterior(c, 1, p), bayes::posterior(c, 2, p), std::stod(f[3]));
+            got = planning::ahead(cell::posterior(c, 1, p), cell::posterior(c, 2, p), std::stod(f[3]));
         }
         else ADD_FAILURE() << "unknown quantity " << r.quantity;
         EXPECT_EQ(static_cast<double>(got), r.value) << r.name << " " << r.quantity << " (" << r.source << ")";
@@ -333,7 +336,7 @@ TEST(Sweep, PairAndOneRateInvariants) {
         const double level = 0.5 + 0.4999 * d.uniform();
         for (const auto m : {one_rate::method::wilson, one_rate::method::exact, one_rate::method::jeffreys,
                              one_rate::method::agresti_coull}) {
-            const auto b = one_rate::bounds(c, 1, level, m);
+            const auto b = cell::one_bounds(c, 1, level, m);
             const double rate = static_cast<double>(x[0]) / static_cast<double>(n1);
             EXPECT_LE(0.0, b.low);
             EXPECT_LE(b.low, b.high);
@@ -348,12 +351,12 @@ TEST(Sweep, PairAndOneRateInvariants) {
         for (const auto m : {pairwise::interval_method::newcombe, pairwise::interval_method::score,
                              pairwise::interval_method::agresti_caffo, pairwise::interval_method::wald}) {
             o.how = m;
-            const auto b = pairwise::difference_interval(c, 1, 2, o);
+            const auto b = cell::difference_interval(c, 1, 2, o);
             EXPECT_LE(-1.0, b.low);
             EXPECT_LE(b.low, b.high);
             EXPECT_LE(b.high, 1.0);
         }
-        const double p = pairwise::same_rate_p(c, 1, 2, pairwise::test_options{});
+        const double p = cell::same_rate_p(c, 1, 2, pairwise::test_options{});
         EXPECT_GE(p, 0.0);
         EXPECT_LE(p, 1.0);
     }

@@ -23,15 +23,18 @@
 #include "tallyrates/omnibus/residuals.hpp"
 #include "tallyrates/pairs/one_rate.hpp"
 #include "tallyrates/pairs/pairwise.hpp"
+#include "support.hpp"
 
 using namespace tallyrates;
 using tallyrates::testing::reference_rows;
 
 namespace {
 
+namespace cell = tallyrates::testing::cell;
+
 group g(std::int64_t x, std::int64_t n, std::size_t position = 1) { return {position, x, n}; }
 
-counts tally(std::vector<std::int64_t> x, std::vector<std::int64_t> n) { return counts::from_values(x, n); }
+using tallyrates::testing::tally;
 
 // Published to 4 decimals: within half a unit of the last place (plus rounding slack).
 void expect_4dp(double got, double published, const char* what) {
@@ -241,12 +244,12 @@ TEST(Adjust, FamilyReferenceRows) {
         // "against1" is every group against group 1: j = 1 is the reference.
         const bool against = o.comparisons == pairwise::family::against;
         const double first = against ? (j == 1 ? i : j) : i, second = against ? 1 : j;
-        const double p = pairwise::same_rate_p(c, first, second, o, &cache);
+        const double p = cell::same_rate_p(c, first, second, o, &cache);
         EXPECT_NEAR(p, r.value, 1e-10 * r.value + 1e-300) << r.quantity << " " << r.source;
         // The same value without the cache, and (in the family of all pairs) for (j, i).
-        EXPECT_EQ(p, pairwise::same_rate_p(c, first, second, o)) << r.quantity;
+        EXPECT_EQ(p, cell::same_rate_p(c, first, second, o)) << r.quantity;
         if (!against) {
-            EXPECT_EQ(p, pairwise::same_rate_p(c, j, i, o)) << r.quantity;
+            EXPECT_EQ(p, cell::same_rate_p(c, j, i, o)) << r.quantity;
         }
         ++checked;
     }
@@ -280,8 +283,8 @@ TEST(Adjust, SimultaneousLevels) {
     const auto c = tally({45, 171, 12, 30}, {50, 190, 12, 40});
     pairwise::interval_options single, joint;
     joint.adjust = adjust::simultaneous::bonferroni;
-    const auto a = pairwise::difference_interval(c, 1, 2, single);
-    const auto b = pairwise::difference_interval(c, 1, 2, joint);
+    const auto a = cell::difference_interval(c, 1, 2, single);
+    const auto b = cell::difference_interval(c, 1, 2, joint);
     EXPECT_LT(b.low, a.low);
     EXPECT_GT(b.high, a.high);
     // "against" holds G - 1 = 3 comparisons, "all" 6.
@@ -294,16 +297,16 @@ TEST(Pairs, BadPositionsAndLevelsAreRefused) {
         std::vector{entry::number(4), entry::number(0), entry::blank(), entry::number(3)},
         std::vector{entry::number(10), entry::number(0), entry::blank(), entry::number(8)});
     const pairwise::interval_options o;
-    EXPECT_THROW(pairwise::difference_interval(c, 1, 1, o), invalid_input);  // i = j
-    EXPECT_THROW(pairwise::difference_interval(c, 1, 2, o), invalid_input);  // no attempts
-    EXPECT_THROW(pairwise::difference_interval(c, 1, 3, o), invalid_input);  // blank row
-    EXPECT_THROW(pairwise::difference_interval(c, 1, 5, o), invalid_input);  // outside
+    EXPECT_THROW(cell::difference_interval(c, 1, 1, o), invalid_input);  // i = j
+    EXPECT_THROW(cell::difference_interval(c, 1, 2, o), invalid_input);  // no attempts
+    EXPECT_THROW(cell::difference_interval(c, 1, 3, o), invalid_input);  // blank row
+    EXPECT_THROW(cell::difference_interval(c, 1, 5, o), invalid_input);  // outside
     pairwise::interval_options bad_level;
     bad_level.level = 1.0;
-    EXPECT_THROW(pairwise::difference_interval(c, 1, 4, bad_level), invalid_input);
-    EXPECT_THROW(one_rate::bounds(c, 2, 0.95, one_rate::method::wilson), invalid_input);
-    EXPECT_THROW(one_rate::bounds(c, 1, 0.0, one_rate::method::wilson), invalid_input);
-    EXPECT_THROW(pairwise::same_rate_p(c, 4, 4, pairwise::test_options{}), invalid_input);
+    EXPECT_THROW(cell::difference_interval(c, 1, 4, bad_level), invalid_input);
+    EXPECT_THROW(cell::one_bounds(c, 2, 0.95, one_rate::method::wilson), invalid_input);
+    EXPECT_THROW(cell::one_bounds(c, 1, 0.0, one_rate::method::wilson), invalid_input);
+    EXPECT_THROW(cell::same_rate_p(c, 4, 4, pairwise::test_options{}), invalid_input);
 }
 
 TEST(Residuals, ReferenceRows) {
@@ -351,15 +354,15 @@ TEST(Pairs, TableAgreesWithTheSingleCellsToTheLastBit) {
     EXPECT_EQ(rows[5].j, 6u);
     for (const auto& r : rows) {
         const auto i = static_cast<double>(r.i), j = static_cast<double>(r.j);
-        const auto ci = pairwise::difference_interval(
+        const auto ci = cell::difference_interval(
             c, i, j, pairwise::interval_options{o.level, o.how, o.intervals, pairwise::family::all});
         EXPECT_EQ(r.bounds.low, ci.low);
         EXPECT_EQ(r.bounds.high, ci.high);
-        EXPECT_EQ(r.difference, pairwise::difference(c, i, j));
-        EXPECT_EQ(r.p, pairwise::same_rate_p(c, i, j, pairwise::test_options{}));
+        EXPECT_EQ(r.difference, cell::difference(c, i, j));
+        EXPECT_EQ(r.p, cell::same_rate_p(c, i, j, pairwise::test_options{}));
         pairwise::test_options t;
         t.adjust = o.p;
-        EXPECT_EQ(r.p_adjusted, pairwise::same_rate_p(c, i, j, t));
+        EXPECT_EQ(r.p_adjusted, cell::same_rate_p(c, i, j, t));
         EXPECT_GE(r.p_adjusted, r.p);
     }
     EXPECT_THROW(pairwise::pairs_table(tally({3}, {9}), o), invalid_input);
@@ -376,13 +379,13 @@ TEST(PairFamilies, CostIsCheckedBeforeAnyTestRuns) {
     const auto many = counts::from_values(x, n);
     pairwise::test_options holm;
     holm.adjust = adjust::p_values::holm;
-    EXPECT_THROW(pairwise::same_rate_p(many, 1, 2, holm), budget_exceeded);
+    EXPECT_THROW(cell::same_rate_p(many, 1, 2, holm), budget_exceeded);
     holm.adjust = adjust::p_values::none;  // one pair alone: no family to pay for
-    EXPECT_NO_THROW(pairwise::same_rate_p(many, 1, 2, holm));
+    EXPECT_NO_THROW(cell::same_rate_p(many, 1, 2, holm));
     std::vector<std::int64_t> bx(300), bn(300, 200000);
     for (std::size_t g = 0; g < bx.size(); ++g) bx[g] = 100000 + static_cast<std::int64_t>(g);
     pairwise::test_options exact;
     exact.how = pairwise::test_method::exact;
     exact.adjust = adjust::p_values::holm;
-    EXPECT_THROW(pairwise::same_rate_p(counts::from_values(bx, bn), 1, 2, exact), budget_exceeded);
+    EXPECT_THROW(cell::same_rate_p(counts::from_values(bx, bn), 1, 2, exact), budget_exceeded);
 }

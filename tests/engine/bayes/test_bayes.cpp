@@ -15,12 +15,15 @@
 #include "tallyrates/bayes/comparison.hpp"
 #include "tallyrates/bayes/law.hpp"
 #include "tallyrates/core/errors.hpp"
+#include "support.hpp"
 
 using namespace tallyrates;
 using tallyrates::testing::fields;
 using tallyrates::testing::reference_rows;
 
 namespace {
+
+namespace cell = tallyrates::testing::cell;
 
 void expect_close(double got, double want, const tallyrates::testing::reference_row& r) {
     const double tol = std::fabs(want) < 1e-3 ? std::max(1e-8 * std::fabs(want), 1e-300) : 1e-10;
@@ -29,7 +32,7 @@ void expect_close(double got, double want, const tallyrates::testing::reference_
 
 bayes::beta_law law_of(const tallyrates::testing::reference_row& r, const std::vector<std::string>& f) {
     const bayes::prior p{std::stod(f[1]), std::stod(f[2])};
-    return bayes::posterior(counts::from_values(r.successes, r.attempts), 1, p);
+    return cell::posterior(counts::from_values(r.successes, r.attempts), 1, p);
 }
 
 }  // namespace
@@ -84,10 +87,10 @@ TEST(Posterior, HpdIsNoWiderThanCentral) {
 TEST(Posterior, BadArgumentsAreRefused) {
     const auto c = counts::from_entries(std::vector{entry::number(3), entry::blank()},
                                         std::vector{entry::number(10), entry::blank()});
-    EXPECT_THROW(bayes::posterior(c, 1, {0, 1}), invalid_input);
-    EXPECT_THROW(bayes::posterior(c, 1, {1, -2}), invalid_input);
-    EXPECT_THROW(bayes::posterior(c, 1, {NAN, 1}), invalid_input);
-    EXPECT_THROW(bayes::posterior(c, 2, {}), invalid_input);  // blank row
+    EXPECT_THROW(cell::posterior(c, 1, {0, 1}), invalid_input);
+    EXPECT_THROW(cell::posterior(c, 1, {1, -2}), invalid_input);
+    EXPECT_THROW(cell::posterior(c, 1, {NAN, 1}), invalid_input);
+    EXPECT_THROW(cell::posterior(c, 2, {}), invalid_input);  // blank row
     const bayes::beta_law law{4, 8};
     EXPECT_THROW(bayes::credible(law, 1.0, bayes::kind::central), invalid_input);
     EXPECT_THROW(bayes::above(law, 1.5, bayes::goal::high), invalid_input);
@@ -100,7 +103,7 @@ TEST(Posterior, BadArgumentsAreRefused) {
 TEST(Posterior, AGroupWithoutAttemptsKeepsThePrior) {
     // functions.md: attempts = 0 is allowed; the posterior is the prior.
     const auto c = counts::from_values(std::vector<std::int64_t>{0, 5}, std::vector<std::int64_t>{0, 9});
-    const auto law = bayes::posterior(c, 1, {2, 3});
+    const auto law = cell::posterior(c, 1, {2, 3});
     EXPECT_EQ(law.a, 2.0);
     EXPECT_EQ(law.b, 3.0);
 }
@@ -184,7 +187,7 @@ TEST(Compare, TableAndCurvesAreTheSingleCellAnswers) {
     ASSERT_EQ(rows.size(), 3u);
     const auto laws = bayes::posteriors(c, p);
     for (std::size_t k = 0; k < rows.size(); ++k) {
-        const auto law = bayes::posterior(c, static_cast<double>(rows[k].position), p);
+        const auto law = cell::posterior(c, static_cast<double>(rows[k].position), p);
         EXPECT_EQ(rows[k].mean, bayes::mean(law));
         EXPECT_EQ(rows[k].bounds.low, bayes::credible(law, 0.9, bayes::kind::central).low);
         EXPECT_EQ(rows[k].best, bayes::best(laws, k, bayes::goal::high));

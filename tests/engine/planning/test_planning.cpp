@@ -15,12 +15,15 @@
 #include "reference.hpp"
 #include "tallyrates/core/errors.hpp"
 #include "tallyrates/planning/planning.hpp"
+#include "support.hpp"
 
 using namespace tallyrates;
 using tallyrates::testing::fields;
 using tallyrates::testing::reference_rows;
 
 namespace {
+
+namespace cell = tallyrates::testing::cell;
 
 one_rate::method method_of(const std::string& name) {
     if (name == "wilson") return one_rate::method::wilson;
@@ -80,7 +83,7 @@ TEST(Planning, ReferenceRows) {
         } else if (what == "plan_ahead") {
             const bayes::prior p{std::stod(f[1]), std::stod(f[2])};
             const auto c = counts::from_values(r.successes, r.attempts);
-            EXPECT_EQ(planning::ahead(bayes::posterior(c, 1, p), bayes::posterior(c, 2, p), std::stod(f[3])), want)
+            EXPECT_EQ(planning::ahead(cell::posterior(c, 1, p), cell::posterior(c, 2, p), std::stod(f[3])), want)
                 << r.name << " " << r.quantity << " " << r.source;
         } else {
             ADD_FAILURE() << "unknown quantity " << r.quantity;

@@ -12,6 +12,7 @@
 #include "detail/hypergeometric.hpp"
 #include "golden_cases.hpp"
 #include "reference.hpp"
+#include "support.hpp"
 #include "tallyrates/core/errors.hpp"
 #include "tallyrates/omnibus/same_rates.hpp"
 #include "tallyrates/omnibus/trend.hpp"
@@ -19,20 +20,11 @@
 using namespace tallyrates;
 using namespace tallyrates::omnibus;
 using tallyrates::testing::reference_rows;
+using tallyrates::testing::tally;
 
 namespace {
 
-counts make(const std::vector<std::int64_t>& x, const std::vector<std::int64_t>& n) {
-    return counts::from_values(x, n);
-}
-
-void expect_relative(double got, double want, double tol, const std::string& what) {
-    if (want == 0.0) {
-        EXPECT_LE(std::fabs(got), 1e-300) << what;
-        return;
-    }
-    EXPECT_LE(std::fabs(got - want), tol * std::fabs(want)) << what << ": got " << got << " want " << want;
-}
+using tallyrates::testing::expect_relative;
 
 method method_for(const std::string& q) {
     if (q == "pearson_p" || q == "pearson_stat") return method::pearson;
@@ -55,7 +47,7 @@ TEST(OmnibusReference, ChiSquareStatisticsAndPValuesMatchScipy) {
             continue;
         options o;
         o.how = method_for(r.quantity);
-        const auto res = same_rates(make(r.successes, r.attempts), o);
+        const auto res = same_rates(tally(r.successes, r.attempts), o);
         const bool stat = r.quantity.ends_with("_stat");
         // Statistics to 1e-12; p-values to 1e-12 except deep tails, where two
         // incomplete-gamma implementations agree to about 1e-10.
@@ -77,7 +69,7 @@ TEST(OmnibusReference, ExactMatchesIndependentEnumerationAndFisher) {
         if (!r.quantity.starts_with("exact") && r.quantity != "fisher_p") continue;
         options o;
         o.how = method_for(r.quantity);
-        const auto res = same_rates(make(r.successes, r.attempts), o);
+        const auto res = same_rates(tally(r.successes, r.attempts), o);
         expect_relative(res.p, r.value, 1e-12, r.name + " " + r.quantity + " (" + r.source + ")");
         // Certain, not estimated: the certified bounds meet at the answer
         // (a merge width of 1e-6 leaves the near-tie table undecided and
@@ -94,7 +86,7 @@ TEST(OmnibusPublished, FisherTeaTasting) {
     // (checks.md; Agresti 2002, Categorical Data Analysis, section 3.5).
     options o;
     o.how = method::exact;
-    EXPECT_NEAR(same_rates(make({3, 1}, {4, 4}), o).p, 0.486, 0.0005);
+    EXPECT_NEAR(same_rates(tally({3, 1}, {4, 4}), o).p, 0.486, 0.0005);
 }
 
 TEST(OmnibusPublished, AgrestiPartyIdentificationByGender) {
@@ -102,23 +94,23 @@ TEST(OmnibusPublished, AgrestiPartyIdentificationByGender) {
     // G^2 = 30.0 [M] (checks.md).
     options o;
     o.how = method::pearson;
-    EXPECT_NEAR(same_rates(make({762, 327, 468}, {1246, 566, 945}), o).statistic, 30.1, 0.05);
+    EXPECT_NEAR(same_rates(tally({762, 327, 468}, {1246, 566, 945}), o).statistic, 30.1, 0.05);
     o.how = method::lr;
-    EXPECT_NEAR(same_rates(make({762, 327, 468}, {1246, 566, 945}), o).statistic, 30.0, 0.05);
+    EXPECT_NEAR(same_rates(tally({762, 327, 468}, {1246, 566, 945}), o).statistic, 30.0, 0.05);
 }
 
 TEST(OmnibusPublished, AgrestiAspirinTrial) {
     // 189/11034 against 104/11037: X^2 = 25.01 [S] (checks.md).
     options o;
     o.how = method::pearson;
-    EXPECT_NEAR(same_rates(make({189, 104}, {11034, 11037}), o).statistic, 25.01, 0.005);
+    EXPECT_NEAR(same_rates(tally({189, 104}, {11034, 11037}), o).statistic, 25.01, 0.005);
 }
 
 TEST(OmnibusPublished, ArmitageHomogeneityChiSquare) {
     // Armitage 1955 Table 1: homogeneity X^2 recomputes to 7.8848 [R] (checks.md).
     options o;
     o.how = method::pearson;
-    EXPECT_NEAR(same_rates(make({19, 29, 24}, {516, 589, 293}), o).statistic, 7.8848, 0.00005);
+    EXPECT_NEAR(same_rates(tally({19, 29, 24}, {516, 589, 293}), o).statistic, 7.8848, 0.00005);
 }
 
 TEST(OmnibusEdges, AllSuccessesOrNoneGiveOne) {
@@ -129,8 +121,8 @@ TEST(OmnibusEdges, AllSuccessesOrNoneGiveOne) {
         options o;
         o.how = how;
         o.draws = 1000;
-        EXPECT_EQ(same_rates(make({5, 7}, {5, 7}), o).p, 1.0);
-        EXPECT_EQ(same_rates(make({0, 0, 0}, {5, 7, 1}), o).p, 1.0);
+        EXPECT_EQ(same_rates(tally({5, 7}, {5, 7}), o).p, 1.0);
+        EXPECT_EQ(same_rates(tally({0, 0, 0}, {5, 7, 1}), o).p, 1.0);
     }
 }
 
@@ -145,12 +137,12 @@ TEST(OmnibusEdges, GroupsWithoutAttemptsAreLeftOut) {
     EXPECT_EQ(r.df, 1);
     // scipy chi2_contingency(correction=False) on [[18,22],[27,13]]: g2_even row.
     EXPECT_NEAR(r.statistic, 4.114285714285715, 1e-12);
-    EXPECT_THROW(same_rates(make({3, 0}, {5, 0}), o), invalid_input);
+    EXPECT_THROW(same_rates(tally({3, 0}, {5, 0}), o), invalid_input);
 }
 
 TEST(OmnibusExact, CoarseBoundsBracketTheExactValue) {
     // Certified bounds: the exact value (itself checked above) lies between them.
-    const table t = table_of(make({2, 3, 1, 4, 0, 5, 6, 2}, {5, 5, 4, 6, 3, 6, 9, 7}));
+    const table t = table_of(tally({2, 3, 1, 4, 0, 5, 6, 2}, {5, 5, 4, 6, 3, 6, 9, 7}));
     for (auto o : {ordering::pearson, ordering::lr, ordering::probability}) {
         const auto exact = exact_p(t, o, 1u << 30, 1u << 22);
         const auto coarse = exact_p(t, o, 1u << 30, 1u << 22, 1e-2);
@@ -172,8 +164,8 @@ TEST(OmnibusExact, SameOutcomeBitForBitOnAnyThreadCount) {
     // and by memory.
     const auto unequal = tallyrates::testing::unequal_twelve("unequal_300", 300, 0.35, 0.65);
     const std::vector<table> tables = {
-        table_of(make(unequal.x, unequal.n)),
-        table_of(make({2, 3, 4, 6, 7, 9, 10, 12, 13, 15, 16, 18}, std::vector<std::int64_t>(12, 20)))};
+        table_of(tally(unequal.x, unequal.n)),
+        table_of(tally({2, 3, 4, 6, 7, 9, 10, 12, 13, 15, 16, 18}, std::vector<std::int64_t>(12, 20)))};
     std::size_t stopped = 0, split = 0;
     for (const auto& t : tables)
         for (auto o : {ordering::pearson, ordering::lr, ordering::probability})
@@ -204,7 +196,7 @@ TEST(OmnibusExact, SameOutcomeBitForBitOnAnyThreadCount) {
     // stopped part way by work and by memory (a chunking that followed the
     // thread count fails here).
     const auto large = tallyrates::testing::unequal_twelve("unequal_420", 420, 0.35, 0.65);
-    const table t = table_of(make(large.x, large.n));
+    const table t = table_of(tally(large.x, large.n));
     const auto full = exact_p(t, ordering::pearson, 1ull << 40, 1ull << 30, 1e-9, 2);
     for (const auto& [work, buckets] : std::vector<std::pair<std::uint64_t, std::size_t>>{
              {1ull << 40, 1ull << 30}, {full.work / 2, 1ull << 30}, {full.work - 1000, 1ull << 30},
@@ -222,14 +214,14 @@ TEST(OmnibusExact, GivesUpOnHugeTablesWhenAskedByName) {
     // Architecture: heavy work past the hard cap fails quickly with Err:523.
     options o;
     o.how = method::exact;
-    EXPECT_THROW(same_rates(make({3, 40000, 41000, 39000}, {5, 80000, 80000, 80000}), o), budget_exceeded);
+    EXPECT_THROW(same_rates(tally({3, 40000, 41000, 39000}, {5, 80000, 80000, 80000}), o), budget_exceeded);
     // The refusal path stays quick (issue 10): 10,000 groups of 2 attempts
     // would hold 1.6 GB of bounds alone, and are refused before anything is
     // built or enumerated, with no coarse pass after (too_large).
     std::vector<std::int64_t> x(10000), n(10000, 2);
     for (std::size_t k = 0; k < x.size(); ++k) x[k] = static_cast<std::int64_t>(k % 3);
     const limits caps;
-    const auto r = exact_p(table_of(make(x, n)), ordering::pearson, caps.exact_work, caps.max_buckets);
+    const auto r = exact_p(table_of(tally(x, n)), ordering::pearson, caps.exact_work, caps.max_buckets);
     EXPECT_FALSE(r.complete);
     EXPECT_TRUE(r.too_large);
     EXPECT_NE(r.stopped.find("in memory at once"), std::string::npos) << r.stopped;
@@ -251,7 +243,7 @@ TEST(OmnibusMonteCarlo, WithinFourStandardErrorsOfExact) {
         {{30, 2, 1}, {40, 6, 5}},
     };
     for (const auto& [x, n] : cases) {
-        const auto c = make(x, n);
+        const auto c = tally(x, n);
         options ex;
         ex.how = method::exact;
         const double exact = same_rates(c, ex).p;
@@ -266,7 +258,7 @@ TEST(OmnibusMonteCarlo, WithinFourStandardErrorsOfExact) {
 }
 
 TEST(OmnibusMonteCarlo, BitIdenticalAcrossRunsAndThreadCounts) {
-    const auto t = table_of(make({4, 7, 2, 9, 5, 1, 8}, {10, 10, 10, 10, 10, 10, 10}));
+    const auto t = table_of(tally({4, 7, 2, 9, 5, 1, 8}, {10, 10, 10, 10, 10, 10, 10}));
     const auto a = monte_carlo_p(t, ordering::pearson, 300000, default_seed, 1, 1u << 30);
     const auto b = monte_carlo_p(t, ordering::pearson, 300000, default_seed, 1, 1u << 30);
     const auto c = monte_carlo_p(t, ordering::pearson, 300000, default_seed, 2, 1u << 30);
@@ -291,12 +283,12 @@ TEST(OmnibusMonteCarlo, PValueFormulaIsOnePlusExtremeOverDrawsPlusOne) {
     options o;
     o.how = method::monte_carlo;
     o.draws = 1000;
-    const auto r = same_rates(make({5, 5, 5}, {10, 10, 10}), o);
+    const auto r = same_rates(tally({5, 5, 5}, {10, 10, 10}), o);
     EXPECT_EQ(r.mc.extreme, 1000);
     EXPECT_EQ(r.p, 1.0);
     // And with e < B: 211 extreme tables of 300,000 (the golden count of
     // BitIdenticalAcrossRunsAndThreadCounts) give 212 / 300,001.
-    const auto t = table_of(make({4, 7, 2, 9, 5, 1, 8}, {10, 10, 10, 10, 10, 10, 10}));
+    const auto t = table_of(tally({4, 7, 2, 9, 5, 1, 8}, {10, 10, 10, 10, 10, 10, 10}));
     EXPECT_EQ(monte_carlo_p(t, ordering::pearson, 300000, default_seed, 1, 1u << 30).p, 212.0 / 300001.0);
 }
 
@@ -322,7 +314,7 @@ TEST(OmnibusMonteCarlo, TrimmedTailsAreBelowTheUniformsResolution) {
 // counts alone: on both sides of the smallest cap the plan accepts, 1, 2
 // and 4 threads give the same refusal or the same count.
 TEST(OmnibusMonteCarlo, CapBoundaryIsTheSameForAnyThreadCount) {
-    const auto t = table_of(make({7000, 7100, 7200}, {12000, 12000, 12000}));
+    const auto t = table_of(tally({7000, 7100, 7200}, {12000, 12000, 12000}));
     const std::int64_t draws = 131072;
     const auto accepted = [&](std::uint64_t cap) {
         try {
@@ -353,7 +345,7 @@ TEST(OmnibusAuto, RouteChoiceOnBothSidesOfEachCap) {
             n.push_back(m);
             x.push_back(m * (30 + 4 * g) / 100);
         }
-        return make(x, n);
+        return tally(x, n);
     };
     // Exact work 3.3e7 (m = 70) and 5.3e7 (m = 80) against the cap of 4e7.
     EXPECT_EQ(same_rates(twelve(70), options{}).used, route::exact);
@@ -361,7 +353,7 @@ TEST(OmnibusAuto, RouteChoiceOnBothSidesOfEachCap) {
     // The memory cap of "auto" (10^6 partial values): issue 10's unequal
     // table at N = 240 passes it after 6.7e6 of its 4e7 units and goes to
     // Monte Carlo.
-    const auto unequal = make({1, 2, 3, 5, 7, 8, 10, 12, 15, 17, 22, 26},
+    const auto unequal = tally({1, 2, 3, 5, 7, 8, 10, 12, 15, 17, 22, 26},
                               {10, 12, 14, 17, 18, 19, 20, 22, 23, 25, 29, 31});
     const auto stopped = exact_p(table_of(unequal), ordering::pearson, 40'000'000, 1'000'000);
     EXPECT_FALSE(stopped.complete);
@@ -377,7 +369,7 @@ TEST(OmnibusAuto, RouteChoiceOnBothSidesOfEachCap) {
             n.push_back(80000);
             x.push_back(40000 + 1000 * (g % 3));
         }
-        return make(x, n);
+        return tally(x, n);
     };
     const auto four = same_rates(beside(4), options{});
     EXPECT_EQ(four.used, route::monte_carlo);
@@ -396,7 +388,7 @@ TEST(OmnibusAuto, RouteChoiceOnBothSidesOfEachCap) {
         x.push_back(600 + 3 * g);
     }
     try {
-        same_rates(make(x, n), named);
+        same_rates(tally(x, n), named);
         ADD_FAILURE() << "not refused";
     } catch (const budget_exceeded& e) {
         const std::string why = e.what();
@@ -412,20 +404,20 @@ TEST(OmnibusMonteCarlo, RefusesHostileDrawCounts) {
     options o;
     o.how = method::monte_carlo;
     o.draws = 1000000000000000;
-    EXPECT_THROW(same_rates(make({1, 4, 6}, {6, 7, 8}), o), budget_exceeded);
+    EXPECT_THROW(same_rates(tally({1, 4, 6}, {6, 7, 8}), o), budget_exceeded);
     o.draws = 0;
-    EXPECT_THROW(same_rates(make({1, 4, 6}, {6, 7, 8}), o), invalid_input);
+    EXPECT_THROW(same_rates(tally({1, 4, 6}, {6, 7, 8}), o), invalid_input);
 }
 
 TEST(OmnibusAuto, PicksTheRouteTheRulesSay) {
     options o;  // auto
-    EXPECT_EQ(same_rates(make({400, 420}, {1000, 1000}), o).used, route::pearson);
-    const auto small = same_rates(make({45, 171, 12}, {50, 190, 12}), o);
+    EXPECT_EQ(same_rates(tally({400, 420}, {1000, 1000}), o).used, route::pearson);
+    const auto small = same_rates(tally({45, 171, 12}, {50, 190, 12}), o);
     EXPECT_EQ(small.used, route::exact);
     EXPECT_NE(small.why.find("below 5"), std::string::npos);
     // Expected count below 5 in a tiny group beside huge ones: exact is too
     // dear, Monte Carlo is used.
-    const auto big = same_rates(make({3, 40000, 41000, 39000, 40500}, {5, 80000, 80000, 80000, 80000}), o);
+    const auto big = same_rates(tally({3, 40000, 41000, 39000, 40500}, {5, 80000, 80000, 80000, 80000}), o);
     EXPECT_EQ(big.used, route::monte_carlo);
     EXPECT_GT(big.mc.draws, 999);
 }
@@ -435,7 +427,7 @@ TEST(Trend, MatchesStatsmodelsAndArmitage) {
     // binomial form: the same z rescaled by sqrt(N/(N-1)) (generate.py).
     int checked = 0;
     for (const auto& r : reference_rows("trend_")) {
-        const auto c = make(r.successes, r.attempts);
+        const auto c = tally(r.successes, r.attempts);
         std::vector<entry> scores;
         // Scores as in generate.py's TREND_CASES.
         if (r.name == "t_uneven_scores")
@@ -454,13 +446,13 @@ TEST(Trend, MatchesStatsmodelsAndArmitage) {
     // variance forms apart (7.1927 and 7.1876 both print as 7.19); the row
     // trend_binomial_chi2 above (the paper's formula in exact fractions, at
     // 1e-10) does, and this keeps the published figure itself.
-    const auto a = trend::test(make({19, 29, 24}, {516, 589, 293}), {}, trend::variance::binomial);
+    const auto a = trend::test(tally({19, 29, 24}, {516, 589, 293}), {}, trend::variance::binomial);
     EXPECT_NEAR(a.chi2, 7.19, 0.005);
     EXPECT_NEAR(a.p, 0.007, 0.0005);
 }
 
 TEST(Trend, RefusesEqualScoresAndBadScoreCells) {
-    const auto c = make({1, 2, 3}, {5, 5, 5});
+    const auto c = tally({1, 2, 3}, {5, 5, 5});
     std::vector<entry> same{entry::number(2), entry::number(2), entry::number(2)};
     EXPECT_THROW(trend::test(c, same, trend::variance::binomial), invalid_input);
     std::vector<entry> text{entry::number(1), entry::text(), entry::number(3)};

@@ -1,6 +1,6 @@
-// reference.hpp - reads tests/reference/omnibus.csv, the values computed by
-// tests/reference/generate.py with scipy, statsmodels and an independent
-// rational-arithmetic enumerator. Each row names its source.
+// reference.hpp - reads the reference tables of tests/reference/: the values
+// computed by its generators with scipy, statsmodels, mpmath and an
+// independent rational-arithmetic enumerator. Each row names its source.
 #pragma once
 
 #include <cstdint>
@@ -43,6 +43,17 @@ inline std::vector<std::string> fields(const std::string& quantity) {
     std::stringstream in(quantity);
     for (std::string s; std::getline(in, s, '|');) out.push_back(s);
     return out;
+}
+
+// Every row of a reference CSV of tests/reference/ after its header, as fields.
+inline std::vector<std::vector<std::string>> csv_rows(const std::string& file) {
+    std::ifstream in(std::string(TALLYRATES_REFERENCE_DIR) + "/" + file);
+    if (!in) throw std::runtime_error("cannot open " + file);
+    std::vector<std::vector<std::string>> rows;
+    std::string line;
+    std::getline(in, line);  // header
+    while (std::getline(in, line)) rows.push_back(csv_fields(line));
+    return rows;
 }
 
 inline std::vector<reference_row> reference_rows(const std::string& quantity_prefix) {

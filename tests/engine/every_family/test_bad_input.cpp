@@ -13,10 +13,13 @@
 #include "tallyrates/pairs/one_rate.hpp"
 #include "tallyrates/pairs/pairwise.hpp"
 #include "tallyrates/omnibus/trend.hpp"
+#include "support.hpp"
 
 using namespace tallyrates;
 
 namespace {
+
+namespace cell = tallyrates::testing::cell;
 const double bad_values[] = {NAN, INFINITY, -INFINITY, -1.0, 0.5, 1e300, -0.0 - 1e-9, 1e16};
 
 std::vector<entry> col(std::initializer_list<double> v) {
@@ -40,16 +43,16 @@ TEST(BadInput, EveryCountCellValue) {
 TEST(BadInput, EveryEntryPointWithValidCountsAndBadArguments) {
     const auto c = counts::from_values(std::vector<std::int64_t>{3, 4, 5}, std::vector<std::int64_t>{10, 10, 10});
     for (double bad : bad_values) {
-        EXPECT_THROW(pairwise::difference(c, bad, 1), invalid_input) << bad;
-        EXPECT_THROW(pairwise::difference(c, 1, bad), invalid_input) << bad;
-        EXPECT_THROW(pairwise::difference_interval(c, bad, 1, {}), invalid_input) << bad;
-        EXPECT_THROW(pairwise::same_rate_p(c, 1, bad, pairwise::test_options{}), invalid_input) << bad;
-        EXPECT_THROW(one_rate::bounds(c, bad, 0.95, one_rate::method::wilson), invalid_input) << bad;
+        EXPECT_THROW(cell::difference(c, bad, 1), invalid_input) << bad;
+        EXPECT_THROW(cell::difference(c, 1, bad), invalid_input) << bad;
+        EXPECT_THROW(cell::difference_interval(c, bad, 1, {}), invalid_input) << bad;
+        EXPECT_THROW(cell::same_rate_p(c, 1, bad, pairwise::test_options{}), invalid_input) << bad;
+        EXPECT_THROW(cell::one_bounds(c, bad, 0.95, one_rate::method::wilson), invalid_input) << bad;
         if (!(bad > 0 && bad < 1)) {  // a bad position may still be a good level (0.5)
             pairwise::interval_options level;
             level.level = bad;
-            EXPECT_THROW(pairwise::difference_interval(c, 1, 2, level), invalid_input) << bad;
-            EXPECT_THROW(one_rate::bounds(c, 1, bad, one_rate::method::exact), invalid_input) << bad;
+            EXPECT_THROW(cell::difference_interval(c, 1, 2, level), invalid_input) << bad;
+            EXPECT_THROW(cell::one_bounds(c, 1, bad, one_rate::method::exact), invalid_input) << bad;
         }
         std::vector<entry> scores = col({1, 2, 3});
         scores[0] = entry::number(bad);
@@ -101,17 +104,17 @@ TEST(BadInput, ResultsAreFiniteForEveryMethodOnAwkwardTables) {
                          pairwise::interval_method::agresti_caffo, pairwise::interval_method::wald}) {
             pairwise::interval_options o;
             o.how = how;
-            const auto ci = pairwise::difference_interval(c, 1, 2, o);
+            const auto ci = cell::difference_interval(c, 1, 2, o);
             EXPECT_TRUE(ci.low >= -1 && ci.low <= ci.high && ci.high <= 1) << ci.low << " " << ci.high;
         }
         for (auto how : {one_rate::method::wilson, one_rate::method::exact, one_rate::method::jeffreys,
                          one_rate::method::agresti_coull}) {
-            const auto b = one_rate::bounds(c, 2, 0.95, how);
+            const auto b = cell::one_bounds(c, 2, 0.95, how);
             EXPECT_TRUE(b.low >= 0 && b.low <= b.high && b.high <= 1);
         }
         for (auto how : {pairwise::test_method::score, pairwise::test_method::exact}) {
             try {
-                const double p = pairwise::same_rate_p(c, 1, 2, pairwise::test_options{how});
+                const double p = cell::same_rate_p(c, 1, 2, pairwise::test_options{how});
                 EXPECT_TRUE(p >= 0 && p <= 1) << p;
             } catch (const budget_exceeded&) {
                 EXPECT_EQ(how, pairwise::test_method::exact);

@@ -8,6 +8,7 @@
 #include "tallyrates/omnibus/check.hpp"
 #include "tallyrates/core/counts.hpp"
 #include "tallyrates/core/errors.hpp"
+#include "support.hpp"
 
 using namespace tallyrates;
 
@@ -27,12 +28,7 @@ void expect_bad(std::vector<entry> s, std::vector<entry> n, std::size_t position
 }
 
 void expect_bad_lines(const cell_line& s, const cell_line& n, const std::string& words) {
-    try {
-        counts::from_entries(s, n);
-        FAIL() << "no error; expected: " << words;
-    } catch (const invalid_input& e) {
-        EXPECT_NE(std::string(e.what()).find(words), std::string::npos) << e.what();
-    }
+    TALLYRATES_EXPECT_THROW_SAYING(counts::from_entries(s, n), invalid_input, words);
 }
 }  // namespace
 
