@@ -5,6 +5,8 @@
 #include <cctype>
 #include <vector>
 
+#include "tallyrates/core/text.hpp"
+
 namespace tallyrates::catalog {
 
 namespace {
@@ -39,9 +41,13 @@ const function* by_display(std::string_view name) {
     return nullptr;
 }
 
+std::string default_shown(const argument& a) {
+    return a.has_number() ? format_number(a.default_number) : std::string(a.default_text);
+}
+
 std::string argument_text(const argument& a) {
     std::string text(a.description);
-    if (!a.default_text.empty()) text += " Optional; default " + std::string(a.default_text) + ".";
+    if (a.optional()) text += " Optional; default " + default_shown(a) + ".";
     return text;
 }
 

@@ -13,6 +13,7 @@
 // ORG.TALLYRATES.SHEET.RATES.<NAME> (upper case). Never rename one.
 #pragma once
 
+#include <limits>
 #include <span>
 #include <string>
 #include <string_view>
@@ -24,11 +25,24 @@ inline constexpr std::string_view category = "Statistical";
 inline constexpr std::string_view service_name = "org.tallyrates.sheet.Rates";
 inline constexpr std::string_view implementation_name = "org.tallyrates.sheet.RatesImpl";
 
+// One argument of a function. Its default is a number read from the engine's
+// constants (so the wizard and the engine cannot disagree), a keyword
+// written as the user types it ("\"wilson\""), or a note; none: required.
 struct argument {
     std::string_view name;
     std::string_view description;
-    std::string_view default_text;  // empty: required
+    std::string_view default_text;  // a keyword or a note; empty with no number
+    double default_number = std::numeric_limits<double>::quiet_NaN();
+
+    constexpr argument(std::string_view n, std::string_view d, std::string_view text)
+        : name(n), description(d), default_text(text) {}
+    constexpr argument(std::string_view n, std::string_view d, double number)
+        : name(n), description(d), default_number(number) {}
+    bool optional() const { return !default_text.empty() || has_number(); }
+    bool has_number() const { return default_number == default_number; }  // not NaN
 };
+// The default as the wizard and the function reference show it.
+std::string default_shown(const argument& a);
 
 struct function {
     std::string_view programmatic;  // IDL method name; permanent

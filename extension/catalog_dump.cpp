@@ -25,8 +25,7 @@ int main(int argc, char** argv) {
         std::cout << "\n## " << f.display << "(";
         for (std::size_t k = 0; k < f.arguments.size(); ++k) {
             const auto& a = f.arguments[k];
-            std::cout << (k ? "; " : "") << (a.default_text.empty() ? "" : "[") << a.name
-                      << (a.default_text.empty() ? "" : "]");
+            std::cout << (k ? "; " : "") << (a.optional() ? "[" : "") << a.name << (a.optional() ? "]" : "");
         }
         std::cout << ")" << (f.array ? " (array formula)" : "") << "\n\n" << f.description << "\n\n";
         for (const auto& a : f.arguments) std::cout << "- `" << a.name << "`: " << argument_text(a) << "\n";

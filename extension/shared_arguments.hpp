@@ -3,6 +3,8 @@
 #pragma once
 
 #include "catalog.hpp"
+#include "tallyrates/bayes/law.hpp"
+#include "tallyrates/core/arguments.hpp"
 
 // Ends every description of a function that can fail with Err:502.
 #define TALLYRATES_WHY_502 " If the cell shows Err:502, RATES.CHECK on the same ranges says why."
@@ -30,15 +32,15 @@ inline constexpr argument i{"i", "Position of the first group in the range (1 = 
 inline constexpr argument j{"j", "Position of the second group, counted the same way.", ""};
 inline constexpr argument level{
     "level", "Confidence level between 0 and 1: 0.95 means the interval covers the true value 95 times in 100.",
-    "0.95"};
+    arguments::default_level};
 inline constexpr argument prior_a{
     "prior_a",
     "What you believed before these counts, as successes: with prior_b, a Beta prior shared by every group. "
     "1 and 1 (the default) treat every rate as equally likely; 0.5 and 0.5 is Jeffreys' prior. From 0.01 to "
     "1000000.",
-    "1"};
+    bayes::prior{}.a};
 inline constexpr argument prior_b{"prior_b", "What you believed before these counts, as failures (see prior_a). From 0.01 to 1000000.",
-                                  "1"};
+                                  bayes::prior{}.b};
 inline constexpr argument goal{
     "goal",
     "\"high\" when successes are good (units within specification), \"low\" when the counts are defects, so that "

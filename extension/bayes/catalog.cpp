@@ -6,6 +6,7 @@
 
 #include "../catalog.hpp"
 #include "../shared_arguments.hpp"
+#include "tallyrates/bayes/alike.hpp"
 
 namespace tallyrates::catalog {
 
@@ -28,7 +29,7 @@ using shared::successes;
 
 constexpr argument credible_level{
     "level", "Probability the interval holds, between 0 and 1: 0.95 means the rate lies inside with probability 95 %.",
-    "0.95"};
+    arguments::default_level};
 constexpr argument kind{
     "kind",
     "\"central\" (equal chance of lying below and above) or \"hpd\" (the shortest interval: starts at 0 % or "
@@ -53,12 +54,13 @@ constexpr std::array diff_args{successes, attempts, i, shared::j, credible_level
 constexpr std::array best_args{successes, attempts, i, shared::goal, prior_a, prior_b};
 constexpr argument prior_same{
     "prior_same",
-    "How likely you thought, before these counts, that every group shares one rate: between 0 and 1.", "0.5"};
+    "How likely you thought, before these counts, that every group shares one rate: between 0 and 1.",
+    bayes::default_prior_same};
 constexpr std::array same_args{successes, attempts, prior_same, prior_a, prior_b};
 constexpr std::array curve_args{
     successes, attempts,
     argument{"points", "How many rates from 0 % to 100 % the curves are drawn at (2 to 10001; 101 is every percent).",
-             "101"},
+             static_cast<double>(bayes::default_curve_points)},
     prior_a, prior_b, shared::labels};
 constexpr std::array table_args{successes, attempts, credible_level, shared::goal, prior_a, prior_b, shared::labels};
 

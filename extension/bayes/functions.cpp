@@ -25,9 +25,9 @@ bayes::beta_law law_of(const caller& document, const cells& successes, const cel
 interval credible_of(const caller& document, const cells& successes, const cells& attempts, double i,
                      const Any& level, const Any& kind, const Any& prior_a, const Any& prior_b) {
     const auto law = law_of(document, successes, attempts, i, prior_a, prior_b);
-    const auto how = arguments::keyword_or(convert::word(kind, "kind"), bayes::kind::central, keywords::credible_kind,
+    const auto how = arguments::keyword_or(convert::word(kind, "kind"), bayes::default_kind, keywords::credible_kind,
                                            "kind");
-    return bayes::credible(law, convert::number(level, "level").value_or(0.95), how);
+    return bayes::credible(law, convert::number(level, "level").value_or(arguments::default_level), how);
 }
 
 // The posteriors of the groups at positions i and j, which must differ.
@@ -43,7 +43,7 @@ std::pair<bayes::beta_law, bayes::beta_law> two_laws(const caller& document, con
 }
 
 bayes::goal goal_of(const Any& goal) {
-    return arguments::keyword_or(convert::word(goal, "goal"), bayes::goal::high, keywords::goal, "goal");
+    return arguments::keyword_or(convert::word(goal, "goal"), bayes::default_goal, keywords::goal, "goal");
 }
 
 }  // namespace
@@ -94,7 +94,7 @@ namespace {
 interval difference_of(const caller& document, const cells& successes, const cells& attempts, double i, double j,
                        const Any& level, const Any& prior_a, const Any& prior_b) {
     const auto [x, y] = two_laws(document, successes, attempts, i, j, prior_a, prior_b);
-    return bayes::difference(x, y, convert::number(level, "level").value_or(0.95));
+    return bayes::difference(x, y, convert::number(level, "level").value_or(arguments::default_level));
 }
 
 }  // namespace
@@ -148,7 +148,7 @@ double rates::postSame(const caller& document, const cells& successes, const cel
                        const Any& prior_a, const Any& prior_b) {
     return guarded([&] {
         const auto c = convert::counts_of(document, successes, attempts);
-        const double odds = convert::number(prior_same, "prior_same").value_or(0.5);
+        const double odds = convert::number(prior_same, "prior_same").value_or(bayes::default_prior_same);
         return finite(bayes::same(c.groups(), prior_of(prior_a, prior_b), odds));
     });
 }
@@ -158,7 +158,9 @@ array rates::postCurve(const caller& document, const cells& successes, const cel
     return guarded([&] {
         const auto names = convert::optional_texts(labels, "labels");
         const auto c = convert::counts_of(document, successes, attempts, names);
-        const auto n = arguments::whole_or(convert::number(points, "points"), 101, 2, 10001, "points");
+        const auto n = arguments::whole_or(convert::number(points, "points"), bayes::default_curve_points,
+                                             static_cast<double>(bayes::min_curve_points),
+                                             static_cast<double>(bayes::max_curve_points), "points");
         // The header names each column: a chart takes its legend from it.
         std::vector<std::vector<Any>> rows{{Any(ou("rate"))}};
         for (const auto& g : c.groups()) {
@@ -178,7 +180,7 @@ array rates::postTable(const caller& document, const cells& successes, const cel
     return guarded([&] {
         const auto names = convert::optional_texts(labels, "labels");
         const auto c = convert::counts_of(document, successes, attempts, names);
-        const double lv = convert::number(level, "level").value_or(0.95);
+        const double lv = convert::number(level, "level").value_or(arguments::default_level);
         const std::string pct = format_short(lv * 100) + " %";
         std::vector<std::vector<Any>> rows{{Any(ou("group")), Any(ou("expected rate")), Any(ou("low (" + pct + ")")),
                                             Any(ou("high (" + pct + ")")), Any(ou("P(best)")),

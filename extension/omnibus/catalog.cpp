@@ -6,6 +6,7 @@
 
 #include "../catalog.hpp"
 #include "../shared_arguments.hpp"
+#include "tallyrates/omnibus/same_rates.hpp"
 
 namespace tallyrates::catalog {
 
@@ -29,11 +30,11 @@ constexpr argument draws{"draws",
                          "How many random tables \"montecarlo\" draws (and \"auto\" when it simulates), at most "
                          "10,000,000 and at most what about 5 s of work allows: Err:523 at once beyond that, the "
                          "report saying how many fit. More draws, a steadier p-value, a slower cell.",
-                         "100000"};
+                         static_cast<double>(omnibus::default_draws)};
 constexpr argument seed{"seed",
                         "Whole number that fixes the random tables: the same seed gives the same p-value on every "
                         "machine and at every recalculation.",
-                        "20260101"};
+                        static_cast<double>(omnibus::default_seed)};
 
 constexpr std::array check_args{
     successes, attempts,

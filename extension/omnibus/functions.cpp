@@ -50,7 +50,7 @@ omnibus_inputs read_inputs(const caller& document, const cells& successes, const
 
 trend::result trend_of(const caller& document, const cells& successes, const cells& attempts, const Any& scores,
                        const Any& variance) {
-    const auto v = arguments::keyword_or(convert::word(variance, "variance"), trend::variance::binomial,
+    const auto v = arguments::keyword_or(convert::word(variance, "variance"), trend::default_variance,
                                          keywords::trend_variance, "variance");
     return trend::test(convert::counts_of(document, successes, attempts), convert::optional_range(scores, "scores"), v);
 }
@@ -77,7 +77,7 @@ double rates::sameP(const caller& document, const cells& successes, const cells&
 
 double rates::sameStat(const caller& document, const cells& successes, const cells& attempts, const Any& statistic) {
     return guarded([&] {
-        const auto which = arguments::keyword_or(convert::word(statistic, "statistic"), omnibus::ordering::pearson,
+        const auto which = arguments::keyword_or(convert::word(statistic, "statistic"), omnibus::default_statistic,
                                                  keywords::statistic, "statistic");
         return finite(omnibus::statistic(omnibus::table_of(convert::counts_of(document, successes, attempts)), which));
     });

@@ -15,7 +15,7 @@ namespace tallyrates::uno {
 namespace {
 
 double level_of(const Any& level) {
-    return arguments::level(convert::number(level, "level").value_or(0.95), "level");
+    return arguments::level(convert::number(level, "level").value_or(arguments::default_level), "level");
 }
 
 pairwise::interval_options interval_options(const Any& level, const Any& method, const Any& adjust,
@@ -127,7 +127,7 @@ array rates::pairs(const caller& document, const cells& successes, const cells& 
             pairwise::table_options o;
             o.level = level_of(level);
             o.how = arguments::keyword_or(convert::word(method, "method"), o.how, keywords::difference_method, "method");
-            const auto both = arguments::keyword_or(convert::word(adjust, "adjust"), keywords::pairs_adjust[0].value,
+            const auto both = arguments::keyword_or(convert::word(adjust, "adjust"), std::pair{o.intervals, o.p},
                                                     keywords::pairs_adjust, "adjust");
             std::tie(o.intervals, o.p) = both;
             const auto names = convert::optional_texts(labels, "labels");

@@ -70,7 +70,7 @@ inline constexpr std::array<word<one_rate::method>, 4> one_rate_method{{
 
 // The interval method of RATES.ONE.LOW/HIGH and RATES.PLAN.WIDTH; Wilson when omitted.
 inline one_rate::method one_rate_method_or_wilson(const std::optional<std::string>& text) {
-    return arguments::keyword_or(text, one_rate::method::wilson, one_rate_method, "method");
+    return arguments::keyword_or(text, one_rate::default_method, one_rate_method, "method");
 }
 
 }  // namespace tallyrates::keywords

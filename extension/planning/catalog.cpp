@@ -6,6 +6,7 @@
 
 #include "../catalog.hpp"
 #include "../shared_arguments.hpp"
+#include "tallyrates/planning/planning.hpp"
 
 namespace tallyrates::catalog {
 
@@ -30,7 +31,7 @@ constexpr argument failures{
     "failures",
     "Failures the test plan allows: 0 for a zero-failure (success-run) plan, the shortest; allowing 1 or 2 "
     "costs more units, but one stray failure no longer sinks the test. A whole number.",
-    "0"};
+    static_cast<double>(planning::default_failures)};
 constexpr std::array demo_args{demo_rate, demo_confidence, failures};
 
 constexpr argument expected_rate{
@@ -56,11 +57,11 @@ constexpr argument power{
     "power",
     "Chance of detecting the difference if it is real, between 0 and 1: 0.8 misses a real difference 1 time in "
     "5; choose 0.9 or 0.95 when missing it is costly.",
-    "0.8"};
+    planning::default_power};
 constexpr argument alpha{
     "alpha",
     "Chance of a false alarm (calling the groups different when they are not), between 0 and 1, two-sided.",
-    "0.05"};
+    planning::default_alpha};
 constexpr argument correction{
     "correction",
     "FALSE or \"none\": sized for the comparison RATES.PAIR.P makes by default (the score test, no "

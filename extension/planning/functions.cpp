@@ -21,21 +21,22 @@ double attempts_of(std::int64_t n) { return static_cast<double>(n); }
 planning::correction correction_of(const Any& a) {
     const auto v = convert::switch_value(a, "correction");
     if (v.number) return planning::correction_from_number(*v.number);
-    return arguments::keyword_or(v.word, planning::correction::none, keywords::correction, "correction");
+    return arguments::keyword_or(v.word, planning::default_correction, keywords::correction, "correction");
 }
 
 }  // namespace
 
 double rates::planDemo(const caller&, double rate, double confidence, const Any& failures) {
     return guarded([&] {
-        const auto allowed = arguments::whole_or(convert::number(failures, "failures"), 0, 0, 1e9, "failures");
+        const auto allowed = arguments::whole_or(convert::number(failures, "failures"), planning::default_failures, 0, 1e9,
+                                                   "failures");
         return attempts_of(planning::demonstration(rate, confidence, allowed));
     });
 }
 
 double rates::planWidth(const caller&, double rate, double half_width, const Any& level, const Any& method) {
     return guarded([&] {
-        return attempts_of(planning::width(rate, half_width, convert::number(level, "level").value_or(0.95),
+        return attempts_of(planning::width(rate, half_width, convert::number(level, "level").value_or(arguments::default_level),
                                            keywords::one_rate_method_or_wilson(convert::word(method, "method"))));
     });
 }
@@ -43,8 +44,9 @@ double rates::planWidth(const caller&, double rate, double half_width, const Any
 double rates::planPower(const caller&, double rate_1, double rate_2, const Any& power, const Any& alpha,
                         const Any& correction) {
     return guarded([&] {
-        return attempts_of(planning::power(rate_1, rate_2, convert::number(power, "power").value_or(0.8),
-                                           convert::number(alpha, "alpha").value_or(0.05), correction_of(correction)));
+        return attempts_of(planning::power(rate_1, rate_2, convert::number(power, "power").value_or(planning::default_power),
+                                           convert::number(alpha, "alpha").value_or(planning::default_alpha),
+                                           correction_of(correction)));
     });
 }
 

@@ -4,17 +4,25 @@
 // (functions.md); no outside numbers are involved.
 #include <gtest/gtest.h>
 
+#include <array>
 #include <fstream>
+#include <map>
 #include <regex>
 #include <set>
 #include <sstream>
 
+#include "bayes/keywords.hpp"
 #include "catalog.hpp"
 #include "omnibus/keywords.hpp"
 #include "pairs/keywords.hpp"
 #include "planning/keywords.hpp"
+#include "tallyrates/bayes/across.hpp"
+#include "tallyrates/bayes/alike.hpp"
+#include "tallyrates/bayes/law.hpp"
 #include "tallyrates/core/errors.hpp"
+#include "tallyrates/core/text.hpp"
 #include "tallyrates/omnibus/same_rates.hpp"
+#include "tallyrates/planning/planning.hpp"
 
 using namespace tallyrates;
 
@@ -67,17 +75,109 @@ TEST(Catalog, MatchesTheIdl) {
     EXPECT_EQ(found, catalog::functions().size());
 }
 
-TEST(Catalog, DefaultsAreTheEngineDefaults) {
-    const omnibus::options o;
-    const auto* same = catalog::by_programmatic("sameP");
-    ASSERT_NE(same, nullptr);
-    EXPECT_TRUE(same->arguments[2].default_text.starts_with(
-        "\"" + std::string(arguments::text_of(o.how, keywords::omnibus_method)) + "\""));
-    EXPECT_EQ(same->arguments[3].default_text, std::to_string(o.draws));
-    EXPECT_EQ(same->arguments[4].default_text, std::to_string(o.seed));
-    const auto* trend = catalog::by_programmatic("trendP");
-    EXPECT_EQ(trend->arguments[3].default_text,
-              "\"" + std::string(arguments::text_of(trend::variance::binomial, keywords::trend_variance)) + "\"");
+namespace {
+
+template <class E, std::size_t K>
+std::string quoted(E value, const std::array<arguments::word<E>, K>& words) {
+    return "\"" + std::string(arguments::text_of(value, words)) + "\"";
+}
+
+}  // namespace
+
+// Every optional argument of every function shows the engine's own default:
+// numbers are read from the engine's constants (checked here to be the ones
+// the functions use), keywords are the text of the engine's default choice,
+// and the rest are notes (a missing range, "m: every one"). An optional
+// argument this table does not know fails the test, so a new default cannot
+// slip past it.
+TEST(Catalog, EveryDefaultIsTheEngines) {
+    const std::map<std::string, double> numbers{
+        {"level", arguments::default_level},
+        {"power", planning::default_power},
+        {"alpha", planning::default_alpha},
+        {"failures", static_cast<double>(planning::default_failures)},
+        {"points", static_cast<double>(bayes::default_curve_points)},
+        {"prior_same", bayes::default_prior_same},
+        {"prior_a", bayes::prior{}.a},
+        {"prior_b", bayes::prior{}.b},
+        {"draws", static_cast<double>(omnibus::options{}.draws)},
+        {"seed", static_cast<double>(omnibus::options{}.seed)}};
+    const pairwise::interval_options interval;
+    const pairwise::test_options test;
+    const pairwise::table_options table;
+    const std::string automatic = quoted(omnibus::options{}.how, keywords::omnibus_method);
+    const std::map<std::pair<std::string, std::string>, std::string> words{
+        {{"check", "method"}, automatic},
+        {{"sameP", "method"}, automatic},
+        {{"sameReport", "method"}, automatic},
+        {{"sameStat", "statistic"}, quoted(omnibus::default_statistic, keywords::statistic)},
+        {{"trendP", "variance"}, quoted(trend::default_variance, keywords::trend_variance)},
+        {{"trendZ", "variance"}, quoted(trend::default_variance, keywords::trend_variance)},
+        {{"diffLow", "method"}, quoted(interval.how, keywords::difference_method)},
+        {{"diffHigh", "method"}, quoted(interval.how, keywords::difference_method)},
+        {{"diffLow", "adjust"}, quoted(interval.adjust, keywords::simultaneous)},
+        {{"diffHigh", "adjust"}, quoted(interval.adjust, keywords::simultaneous)},
+        {{"diffLow", "family"}, quoted(interval.comparisons, keywords::family)},
+        {{"diffHigh", "family"}, quoted(interval.comparisons, keywords::family)},
+        {{"pairP", "adjust"}, quoted(test.adjust, keywords::p_adjust)},
+        {{"pairP", "method"}, quoted(test.how, keywords::pair_test)},
+        {{"pairP", "family"}, quoted(test.comparisons, keywords::family)},
+        {{"pairs", "method"}, quoted(table.how, keywords::difference_method)},
+        {{"pairs", "adjust"},
+         "\"" + std::string(arguments::text_of(std::pair{table.intervals, table.p}, keywords::pairs_adjust)) + "\""},
+        {{"oneLow", "method"}, quoted(one_rate::default_method, keywords::one_rate_method)},
+        {{"oneHigh", "method"}, quoted(one_rate::default_method, keywords::one_rate_method)},
+        {{"planWidth", "method"}, quoted(one_rate::default_method, keywords::one_rate_method)},
+        {{"postLow", "kind"}, quoted(bayes::default_kind, keywords::credible_kind)},
+        {{"postHigh", "kind"}, quoted(bayes::default_kind, keywords::credible_kind)},
+        {{"postAbove", "goal"}, quoted(bayes::default_goal, keywords::goal)},
+        {{"postBest", "goal"}, quoted(bayes::default_goal, keywords::goal)},
+        {{"postLoss", "goal"}, quoted(bayes::default_goal, keywords::goal)},
+        {{"postTable", "goal"}, quoted(bayes::default_goal, keywords::goal)}};
+    const std::set<std::string> notes{"labels", "i", "j", "k", "scores", "correction"};
+    std::size_t numbers_seen = 0, words_seen = 0;
+    for (const auto& f : catalog::functions())
+        for (const auto& a : f.arguments) {
+            if (!a.optional()) continue;
+            const std::string name(a.name), where = std::string(f.programmatic) + " " + name;
+            if (a.has_number()) {
+                ASSERT_TRUE(numbers.contains(name)) << where << ": a number the engine does not name";
+                EXPECT_EQ(a.default_number, numbers.at(name)) << where;
+                ++numbers_seen;
+            } else if (const auto w = words.find({std::string(f.programmatic), name}); w != words.end()) {
+                EXPECT_TRUE(a.default_text.starts_with(w->second)) << where << ": " << a.default_text;
+                ++words_seen;
+            } else {
+                EXPECT_TRUE(notes.contains(name)) << where << ": a default the engine does not name";
+            }
+        }
+    EXPECT_EQ(words_seen, words.size());
+    EXPECT_GE(numbers_seen, 40u);
+    // The correction's default is shown as the switch a user types (FALSE)
+    // with the word beside it.
+    const auto* power = catalog::by_programmatic("planPower");
+    ASSERT_NE(power, nullptr);
+    EXPECT_NE(power->arguments[4].default_text.find(quoted(planning::default_correction, keywords::correction)),
+              std::string::npos);
+}
+
+// Caps and ranges a wizard text quotes are the engine's.
+TEST(Catalog, QuotedCapsAreTheEngines) {
+    auto text_of = [](const char* function, std::size_t argument) {
+        const auto* f = catalog::by_programmatic(function);
+        return f ? std::string(argument < f->arguments.size() ? f->arguments[argument].description : f->description)
+                 : std::string();
+    };
+    const std::string prior = text_of("postMean", 4);
+    EXPECT_NE(prior.find("From " + format_number(bayes::min_prior) + " to " + format_number(bayes::max_prior)),
+              std::string::npos)
+        << prior;
+    EXPECT_NE(text_of("postCurve", 2).find("(" + std::to_string(bayes::min_curve_points) + " to " +
+                                           std::to_string(bayes::max_curve_points)),
+              std::string::npos);
+    EXPECT_NE(text_of("sameP", 3).find(format_grouped(omnibus::limits{}.max_draws)), std::string::npos);
+    EXPECT_NE(text_of("postBest", 99).find("Up to " + std::to_string(bayes::max_groups_best) + " groups"),
+              std::string::npos);
 }
 
 TEST(Catalog, EveryKeywordIsListedInTheDescriptions) {

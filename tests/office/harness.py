@@ -11,7 +11,8 @@ HERE = os.path.dirname(os.path.abspath(__file__))
 sys.path.insert(0, HERE)
 import lo_session as lo  # noqa: E402
 
-REFERENCE = os.path.join(HERE, "..", "reference", "omnibus.csv")
+# The families' reference tables (tests/reference/<family>.py writes each).
+REFERENCES = [os.path.join(HERE, "..", "reference", name + ".csv") for name in ("omnibus", "pairs", "bayes", "planning")]
 OFFICE = None
 
 
@@ -27,13 +28,14 @@ def stop():
 
 
 def reference_rows():
-    """Rows of tests/reference/omnibus.csv (scipy, statsmodels, brute force)."""
-    with open(REFERENCE) as f:
-        for row in csv.DictReader(f):
-            row["successes"] = [int(v) for v in row["successes"].split()]
-            row["attempts"] = [int(v) for v in row["attempts"].split()]
-            row["value"] = float(row["value"])
-            yield row
+    """Rows of the families' reference tables (scipy, statsmodels, mpmath, brute force)."""
+    for path in REFERENCES:
+        with open(path) as f:
+            for row in csv.DictReader(f):
+                row["successes"] = [int(v) for v in row["successes"].split()]
+                row["attempts"] = [int(v) for v in row["attempts"].split()]
+                row["value"] = float(row["value"])
+                yield row
 
 
 class SheetCase(unittest.TestCase):

@@ -2,7 +2,7 @@
 """The Bayesian family inside a real LibreOffice with the installed .oxt.
 
 Values are compared with the 50-digit mpmath rows of
-tests/reference/omnibus.csv (generate.py); each comparison names its source.
+tests/reference/bayes.csv (bayes.py); each comparison names its source.
 """
 import harness
 from harness import SheetCase
@@ -71,7 +71,7 @@ class Posterior(SheetCase):
         self.assertEqual(cell("D1").getString(), "")  # the diagonal
         self.assertEqual(cell("E1").getValue(), self.value_of("I1"))
         self.assertEqual(cell("F4").getValue(), self.value_of("I2"))
-        # c_ovens, post_ahead 1 over 2: Cook (2005)'s sum in 50-digit mpmath (omnibus.csv).
+        # c_ovens, post_ahead 1 over 2: Cook (2005)'s sum in 50-digit mpmath (bayes.csv).
         self.assertAlmostEqual(cell("E1").getValue(), 0.8376146424373224, delta=1e-10)
         self.assertAlmostEqual(cell("E1").getValue() + cell("D2").getValue(), 1.0, delta=1e-12)
 

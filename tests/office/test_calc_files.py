@@ -143,7 +143,7 @@ class SampleWorkbook(SheetCase):
                   if trial.getCellByPosition(c, k).getError()]
         self.assertEqual(errors, [])
         # The planning block: the pilot's 14 of 14 against oven A's 286 of 300
-        # needs 50 more passing boards (plan_ahead row of omnibus.csv, Cook's
+        # needs 50 more passing boards (plan_ahead row of planning.csv, Cook's
         # sum in 50-digit mpmath); the zero-failure demonstration of 95 % at
         # 95 % confidence takes ln(0.05) / ln(0.95) -> 59 boards (success-run
         # formula, common practice, no single source).

@@ -4,8 +4,8 @@ difference intervals, pairwise p-values with adjustment, the RATES.PAIRS
 table with labels, one-rate intervals and RATES.SAME.RESID beside a tally
 with blank rows.
 
-Values are compared with tests/reference/omnibus.csv (statsmodels 0.13.5,
-scipy 1.10.1 and the independent Miettinen-Nurminen search of generate.py);
+Values are compared with tests/reference/pairs.csv (statsmodels 0.13.5,
+scipy 1.10.1 and the independent Miettinen-Nurminen search of pairs.py);
 each comparison names the row's source.
 """
 import harness

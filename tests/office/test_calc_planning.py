@@ -1,7 +1,7 @@
 #!/usr/bin/python3
 """The planning family inside a real LibreOffice with the installed .oxt.
 
-Every plan_* row of tests/reference/omnibus.csv (generate.py: success-run
+Every plan_* row of tests/reference/planning.csv (planning.py: success-run
 formula and Fleiss formulas in 50-digit mpmath, scipy binomial tails and
 statsmodels intervals searched over every n, Cook's sum in mpmath) goes
 through a cell; each comparison names its source.
@@ -68,7 +68,7 @@ class Planning(SheetCase):
         # A perfect pilot of 14 beside an oven at 286 of 300, a blank row between.
         r = self.put_counts([14, None, 286], [14, None, 300])
         self.formula("D1", "=RATES.PLAN.AHEAD(%s;1;3;0.95)" % r)
-        self.assertEqual(self.value_of("D1"), 50)  # plan_ahead row 14/14 vs 286/300 (mpmath, omnibus.csv)
+        self.assertEqual(self.value_of("D1"), 50)  # plan_ahead row 14/14 vs 286/300 (mpmath, planning.csv)
         # After those 50 further successes the pilot is ahead with at least 0.95.
         self.sheet.getCellRangeByName("A1").setValue(64)
         self.sheet.getCellRangeByName("B1").setValue(64)

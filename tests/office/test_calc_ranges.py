@@ -8,7 +8,7 @@ why count ranges are Calc range objects.
 The expected values are those of the same formula on the exact used rows:
 the rule checked is functions.md's (a range is read as the rows it holds),
 and the numbers themselves are checked against scipy in
-test_calc_functions.py.
+test_calc_omnibus.py.
 """
 import harness
 from harness import SheetCase

@@ -1,13 +1,9 @@
-# Regenerates a reference table (SCRIPT, default generate.py, printing REF,
-# default omnibus.csv) with the reference libraries and compares it with
-# the committed copy. Missing libraries are a failure, not a skip: the test
+# Regenerates a reference table (SCRIPT, printing REF) with the reference
+# libraries and compares it with the committed copy. Missing libraries are a failure, not a skip: the test
 # command installs them (.ci/install-deps), and a check that cannot run must
 # not pass.
-if(NOT SCRIPT)
-  set(SCRIPT generate.py)
-endif()
-if(NOT REF)
-  set(REF omnibus.csv)
+if(NOT SCRIPT OR NOT REF)
+  message(FATAL_ERROR "compare.cmake needs SCRIPT and REF")
 endif()
 execute_process(COMMAND ${PYTHON} -c "import scipy, statsmodels, mpmath, numpy" RESULT_VARIABLE have)
 if(NOT have EQUAL 0)

@@ -20,7 +20,7 @@ import numpy as np
 import scipy
 
 sys.path.insert(0, __file__.rsplit("/", 1)[0])
-from generate import mp_hpd  # noqa: E402  (findroot on the equal-density condition, 50 digits)
+from bayes import mp_hpd  # noqa: E402  (findroot on the equal-density condition, 50 digits)
 from sweep import GL2_NODES, GL2_WEIGHTS, QUAD, best_and_expected as quadrature  # noqa: E402
 
 
@@ -105,7 +105,7 @@ def rows():
         low, high = mp_hpd(mpmath.mpf("1.05"), mpmath.mpf("9.05"), mpmath.mpf("0.95"))
     for word, v in (("LOW", low), ("HIGH", high)):
         yield ("8", '=RATES.POST.%s({r};1;0.95;"hpd";0.05;0.05)' % word, [1], [10], float(v),
-               MP + " (50 digits): findroot on the equal-density condition (generate.py mp_hpd); "
+               MP + " (50 digits): findroot on the equal-density condition (bayes.py mp_hpd); "
                "the low end is 4.3e-25, so the engine must hold 1e-10 absolute there")
     # 9. The prediction to 1e-10 at large m: Beta(4, 39998) (3 of 40,000, flat prior).
     for m, k in ((100000, 5), (1000000, 40)):

@@ -44,7 +44,7 @@ References (each row names its own):
       scipy.stats.beta.cdf.
   One-rate and difference intervals, pair p-values, family adjustments,
       chi-square and likelihood-ratio tests, residuals: scipy and statsmodels
-      as in generate.py (the Miettinen-Nurminen interval from generate.py's
+      as in pairs.py (the Miettinen-Nurminen interval from pairs.py's
       independent bisection).
   Planning: the smallest n by direct search over every n with scipy's
       binomial law (demonstration) and statsmodels' intervals (width), the
@@ -68,7 +68,7 @@ from statsmodels.stats.multitest import multipletests
 from statsmodels.stats.proportion import confint_proportions_2indep, proportion_confint
 
 sys.path.insert(0, __file__.rsplit("/", 1)[0])
-from generate import mn_interval, pair_p_values  # noqa: E402  (independent implementations)
+from pairs import mn_interval, pair_p_values  # noqa: E402  (independent implementations)
 
 SCIPY = "scipy " + scipy.__version__
 STATSMODELS = "statsmodels " + statsmodels.__version__
@@ -312,7 +312,7 @@ def pairs_rows(w):
             out(w, "pairs", name, x, n, "diff_high|%s|%d|%d|%r" % (ours, i + 1, j + 1, lv), hi, src)
         if case % 3 == 0 and max(n[i], n[j]) <= 10 ** 5:
             lo, hi = mn_interval(x[i], n[i], x[j], n[j], lv)
-            src = "generate.py mn_interval (bisection, Miettinen & Nurminen 1985 with N/(N-1))"
+            src = "pairs.py mn_interval (bisection, Miettinen & Nurminen 1985 with N/(N-1))"
             out(w, "pairs", name, x, n, "diff_low|miettinen-nurminen|%d|%d|%r" % (i + 1, j + 1, lv), lo, src)
             out(w, "pairs", name, x, n, "diff_high|miettinen-nurminen|%d|%d|%r" % (i + 1, j + 1, lv), hi, src)
         # every pair's score p, adjusted over all pairs

@@ -56,18 +56,18 @@ inline std::vector<std::vector<std::string>> csv_rows(const std::string& file) {
     return rows;
 }
 
-inline std::vector<reference_row> reference_rows(const std::string& quantity_prefix) {
-    std::ifstream in(TALLYRATES_REFERENCE_DIR "/omnibus.csv");
-    if (!in) throw std::runtime_error("cannot open omnibus.csv");
+// The rows of one family's table (omnibus.csv, pairs.csv, bayes.csv,
+// planning.csv) whose quantity starts with the prefix.
+inline std::vector<reference_row> reference_rows(const std::string& file, const std::string& quantity_prefix) {
     std::vector<reference_row> rows;
-    std::string line;
-    std::getline(in, line);  // header
-    while (std::getline(in, line)) {
-        auto f = csv_fields(line);
+    for (const auto& f : csv_rows(file)) {
         if (f.size() != 6 || f[3].rfind(quantity_prefix, 0) != 0) continue;
         rows.push_back({f[0], f[3], f[5], split_ints(f[1]), split_ints(f[2]), std::stod(f[4])});
     }
     return rows;
 }
+
+// The families' tables, in this order.
+inline constexpr const char* family_tables[] = {"omnibus.csv", "pairs.csv", "bayes.csv", "planning.csv"};
 
 }  // namespace tallyrates::testing

@@ -119,9 +119,10 @@ std::optional<double> density(const beta_law& law, double x) {
 }
 
 std::vector<std::vector<std::optional<double>>> curves(const counts& c, std::int64_t points, prior p) {
-    if (points < 2 || points > 10001)
-        throw invalid_input("The argument points (" + std::to_string(points) +
-                            ") must be a whole number from 2 to 10001: the rates drawn from 0 to 1.");
+    if (points < min_curve_points || points > max_curve_points)
+        throw invalid_input("The argument points (" + std::to_string(points) + ") must be a whole number from " +
+                            std::to_string(min_curve_points) + " to " + std::to_string(max_curve_points) +
+                            ": the rates drawn from 0 to 1.");
     const auto laws = posteriors(c, p);
     if (static_cast<double>(points) * static_cast<double>(laws.size()) > max_curve_values)
         throw budget_exceeded("The curves of " + std::to_string(laws.size()) + " groups at " + std::to_string(points) +

@@ -1,5 +1,5 @@
 // Tests of the Bayesian answers about one group (tallyrates/bayes/) against
-// 50-digit mpmath rows of tests/reference/omnibus.csv (generate.py: the
+// 50-digit mpmath rows of tests/reference/bayes.csv (bayes.py: the
 // incomplete beta function by its continued fraction, bisection and findroot,
 // the beta-binomial sum; NEXT rows also agree with scipy stats.betabinom).
 // Accuracy asked by issue 8: absolute 1e-10, relative 1e-8 below 1e-3.
@@ -39,7 +39,7 @@ bayes::beta_law law_of(const tallyrates::testing::reference_row& r, const std::v
 
 TEST(Posterior, ReferenceRows) {
     std::map<std::string, int> checked;
-    for (const auto& r : reference_rows("post_")) {
+    for (const auto& r : reference_rows("bayes.csv", "post_")) {
         const auto f = fields(r.quantity);
         const std::string& what = f[0];
         if (what == "post_ahead" || what == "post_best" || what == "post_loss" || what == "post_same" ||
@@ -123,7 +123,7 @@ TEST(Compare, ReferenceRows) {
     // 50-digit mpmath (Cook 2005's finite sum, quadrature with the incomplete
     // beta by continued fraction, marginal likelihoods by loggamma).
     std::map<std::string, int> checked;
-    for (const auto& r : reference_rows("post_")) {
+    for (const auto& r : reference_rows("bayes.csv", "post_")) {
         const auto f = fields(r.quantity);
         const std::string& what = f[0];
         if (what != "post_ahead" && what != "post_best" && what != "post_loss" && what != "post_same" &&

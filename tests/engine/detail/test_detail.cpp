@@ -78,7 +78,7 @@ TEST(Generator, MatchesThePublishedAlgorithm) {
 // The additive terms sum to the Pearson X^2 of scipy's chi2_contingency
 // (without continuity correction) for every reference table.
 TEST(Terms, SumToTheChiSquareStatistic) {
-    const auto rows = support::reference_rows("pearson_stat");
+    const auto rows = support::reference_rows("omnibus.csv", "pearson_stat");
     ASSERT_FALSE(rows.empty());
     for (const auto& r : rows) {
         const auto t = omnibus::table_of(support::tally(r.successes, r.attempts));

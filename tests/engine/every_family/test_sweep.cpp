@@ -171,7 +171,7 @@ TEST(Sweep, PairsAgainstStatsmodelsAndScipy) {
             o.how = diff_method(f[1]);
             const auto b = cell::difference_interval(c, std::stod(f[2]), std::stod(f[3]), o);
             // The Miettinen-Nurminen reference is a bisection inside a
-            // bisection (generate.py), settled to about 1e-8.
+            // bisection (pairs.py), settled to about 1e-8.
             expect_within(what == "diff_low" ? b.low : b.high, r.value, f[1] == "miettinen-nurminen" ? 5e-8 : 1e-9, 1e-9, r);
         } else if (what == "diff_low_family" || what == "diff_high_family") {
             pairwise::interval_options o;

@@ -1,5 +1,5 @@
 // Golden exact p-values: p, p_low and p_high of the exact route for every
-// table of tests/reference/omnibus.csv, every golden table and the 2 x 12
+// table of tests/reference/ (every family), every golden table and the 2 x 12
 // speed tables that finish within a second, in all three orderings, written
 // by the enumeration that preceded the k-way merge network (commit da9bd6a)
 // and kept in tests/golden/exact.txt.
@@ -13,10 +13,12 @@
 //   TALLYRATES_GOLDEN_WRITE=tests/golden/exact.txt build/tests/engine_golden_exact
 #include <gtest/gtest.h>
 
+#include <algorithm>
 #include <cmath>
 #include <cstdio>
 #include <cstdlib>
 #include <fstream>
+#include <map>
 #include <set>
 #include <sstream>
 #include <string>
@@ -44,12 +46,22 @@ std::vector<exact_case> cases() {
         if (x.size() >= 2 && x.size() == n.size() && seen.emplace(x, n).second) out.push_back({name, x, n});
     };
     for (const auto& g : tallyrates::testing::golden_tables()) add(g.name, g.x, g.n);
-    // Every distinct table of the reference file with at least two groups.
-    for (const auto& r : tallyrates::testing::reference_rows("")) add(r.name, r.successes, r.attempts);
+    // Every distinct table of the families' reference tables with at least two groups.
+    for (const char* file : tallyrates::testing::family_tables)
+        for (const auto& r : tallyrates::testing::reference_rows(file, "")) add(r.name, r.successes, r.attempts);
     for (const auto& u : {tallyrates::testing::unequal_twelve("unequal_120_mid", 120, 0.35, 0.65),
                           tallyrates::testing::unequal_twelve("unequal_150_far", 150, 0.10, 0.83),
                           tallyrates::testing::unequal_twelve("unequal_240_mid", 240, 0.35, 0.65)})
         add(u.name, u.x, u.n);
+    // In the golden file's order, so that it does not depend on how the
+    // reference tables are split; a new case goes last.
+    std::map<std::string, std::size_t> place;
+    for (const auto& line : tallyrates::testing::read_lines(TALLYRATES_GOLDEN_EXACT_FILE))
+        place.emplace(line.substr(0, line.find(' ')), place.size());
+    std::stable_sort(out.begin(), out.end(), [&](const exact_case& a, const exact_case& b) {
+        const auto pa = place.find(a.name), pb = place.find(b.name);
+        return (pa == place.end() ? place.size() : pa->second) < (pb == place.end() ? place.size() : pb->second);
+    });
     return out;
 }
 

@@ -1,7 +1,7 @@
 // Omnibus tests: X^2 / G^2 against scipy, the exact route against an
 // independent rational enumeration and scipy's Fisher test, Monte Carlo
 // against the exact p-values, the trend test against statsmodels and
-// Armitage 1955. Reference values: tests/reference/omnibus.csv (generate.py).
+// Armitage 1955. Reference values: tests/reference/omnibus.csv (omnibus.py).
 #include <gtest/gtest.h>
 
 #include <bit>
@@ -39,7 +39,7 @@ method method_for(const std::string& q) {
 TEST(OmnibusReference, ChiSquareStatisticsAndPValuesMatchScipy) {
     // Source: scipy 1.10.1 stats.chi2_contingency(correction=False), with and
     // without lambda_="log-likelihood" (each row of omnibus.csv names it).
-    const auto rows = reference_rows("");
+    const auto rows = reference_rows("omnibus.csv", "");
     int checked = 0;
     for (const auto& r : rows) {
         if (r.quantity != "pearson_stat" && r.quantity != "pearson_p" && r.quantity != "lr_stat" &&
@@ -59,13 +59,13 @@ TEST(OmnibusReference, ChiSquareStatisticsAndPValuesMatchScipy) {
 }
 
 TEST(OmnibusReference, ExactMatchesIndependentEnumerationAndFisher) {
-    // Sources: brute_force_exact in generate.py (exact rational arithmetic,
+    // Sources: brute_force_exact in omnibus.py (exact rational arithmetic,
     // every table listed), vector_exact there (numpy, every table of N = 300
     // to 480) and scipy 1.10.1 stats.fisher_exact two-sided. The near-tie
     // tables pin the tie tolerance (1e-7) and the merge width below it: at
     // 1e-6 their p-values move by 0.2 %.
     int checked = 0;
-    for (const auto& r : reference_rows("")) {
+    for (const auto& r : reference_rows("omnibus.csv", "")) {
         if (!r.quantity.starts_with("exact") && r.quantity != "fisher_p") continue;
         options o;
         o.how = method_for(r.quantity);
@@ -424,12 +424,12 @@ TEST(OmnibusAuto, PicksTheRouteTheRulesSay) {
 
 TEST(Trend, MatchesStatsmodelsAndArmitage) {
     // Conditional form: statsmodels 0.13.5 Table.test_ordinal_association;
-    // binomial form: the same z rescaled by sqrt(N/(N-1)) (generate.py).
+    // binomial form: the same z rescaled by sqrt(N/(N-1)) (omnibus.py).
     int checked = 0;
-    for (const auto& r : reference_rows("trend_")) {
+    for (const auto& r : reference_rows("omnibus.csv", "trend_")) {
         const auto c = tally(r.successes, r.attempts);
         std::vector<entry> scores;
-        // Scores as in generate.py's TREND_CASES.
+        // Scores as in omnibus.py's TREND_CASES.
         if (r.name == "t_uneven_scores")
             for (double s : {0, 1, 2, 5}) scores.push_back(entry::number(s));
         const bool binomial = r.quantity.starts_with("trend_binomial");

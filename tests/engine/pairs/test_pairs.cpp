@@ -6,7 +6,7 @@
 //   with its citation, [M] from memory (Newcombe 1998a, Stat Med 17:857;
 //   Newcombe 1998b, Stat Med 17:873, Table II; Benjamini & Hochberg 1995,
 //   JRSS B 57:289, section 4);
-// - rows of tests/reference/omnibus.csv written by generate.py (statsmodels
+// - rows of tests/reference/pairs.csv written by pairs.py (statsmodels
 //   proportion_confint, confint_proportions_2indep, multipletests,
 //   Table.standardized_resids; scipy chi2_contingency, fisher_exact; an
 //   independent Miettinen-Nurminen root search), each naming its source.
@@ -81,7 +81,7 @@ TEST(OneRate, NewcombePublishedExamples) {
 
 TEST(OneRate, ReferenceRows) {
     std::size_t checked = 0;
-    for (const auto& r : reference_rows("one_")) {
+    for (const auto& r : reference_rows("pairs.csv", "one_")) {
         const auto [name, low] = method_and_end(r.quantity, 4);
         const auto b = one_rate::bounds(r.successes[0], r.attempts[0], 0.95, one_methods.at(name));
         const double got = low ? b.low : b.high;
@@ -142,7 +142,7 @@ TEST(Difference, NewcombeTableTwoOtherMethods) {
 
 TEST(Difference, ReferenceRows) {
     std::size_t checked = 0;
-    for (const auto& r : reference_rows("diff_")) {
+    for (const auto& r : reference_rows("pairs.csv", "diff_")) {
         const auto [name, low] = method_and_end(r.quantity, 5);
         const auto ci = pairwise::difference_interval(g(r.successes[0], r.attempts[0]),
                                                       g(r.successes[1], r.attempts[1], 2), 0.95, diff_methods.at(name));
@@ -173,7 +173,7 @@ TEST(Difference, IntervalsStayInsideMinusOneToOneAndHoldTheEstimate) {
 
 TEST(PairTest, ReferenceRows) {
     std::size_t checked = 0;
-    for (const auto& r : reference_rows("pair_")) {
+    for (const auto& r : reference_rows("pairs.csv", "pair_")) {
         const auto how = r.quantity == "pair_exact_p" ? pairwise::test_method::exact : pairwise::test_method::score;
         const double p = pairwise::same_rate_p(g(r.successes[0], r.attempts[0]), g(r.successes[1], r.attempts[1], 2), how);
         // The exact p at n = 10^6 sums long recurrences (ours and scipy's):
@@ -229,7 +229,7 @@ TEST(Adjust, FamilyReferenceRows) {
                                                         {"sidak", adjust::p_values::sidak}};
     std::size_t checked = 0;
     pairwise::p_cache cache(8);
-    for (const auto& r : reference_rows("family_")) {
+    for (const auto& r : reference_rows("pairs.csv", "family_")) {
         // Split "family_score_holm_all_1_3".
         std::vector<std::string> part;
         std::stringstream in(r.quantity);
@@ -311,7 +311,7 @@ TEST(Pairs, BadPositionsAndLevelsAreRefused) {
 
 TEST(Residuals, ReferenceRows) {
     std::size_t checked = 0;
-    for (const auto& r : reference_rows("resid_")) {
+    for (const auto& r : reference_rows("omnibus.csv", "resid_")) {
         const auto res = omnibus::adjusted_residuals(counts::from_values(r.successes, r.attempts));
         const auto pos = std::stoul(r.quantity.substr(6));
         ASSERT_TRUE(res[pos - 1].has_value());

@@ -1,6 +1,6 @@
 // Tests of the planning answers (planning.hpp). Each size is checked against
 // a value found outside the engine: the plan_* rows of
-// tests/reference/omnibus.csv (generate.py: success-run formula in 50-digit
+// tests/reference/planning.csv (planning.py: success-run formula in 50-digit
 // mpmath, scipy stats.binom tails searched over every n, statsmodels
 // proportion_confint searched over every n, the Fleiss formulas in 50-digit
 // mpmath, and Cook's (2005) sum in 50-digit mpmath for AHEAD), plus the
@@ -59,7 +59,7 @@ TEST(Planning, RuleOfThreeSanity) {
 TEST(Planning, ReferenceRows) {
     std::map<std::string, int> checked;
     std::map<std::string, double> fleiss;
-    for (const auto& r : reference_rows("plan_")) {
+    for (const auto& r : reference_rows("planning.csv", "plan_")) {
         const auto f = fields(r.quantity);
         const std::string& what = f[0];
         const auto want = static_cast<std::int64_t>(r.value);
@@ -112,7 +112,7 @@ TEST(Planning, PowerAnswerIsSmallest) {
 
 // Widths saw-tooth: the answer is the first n that meets the target, even
 // where a few larger n miss it again (common practice, no source: seen in
-// the statsmodels search of generate.py).
+// the statsmodels search of planning.py).
 TEST(Planning, WidthIsFirstMeetingN) {
     for (auto how : {one_rate::method::wilson, one_rate::method::exact, one_rate::method::jeffreys,
                      one_rate::method::agresti_coull})

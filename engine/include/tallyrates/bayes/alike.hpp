@@ -14,5 +14,7 @@ namespace tallyrates::bayes {
 // Posterior probability that every group shares one rate (prior probability
 // prior_same of that against all rates independent), for the groups' counts.
 double same(std::span<const group> groups, prior p, double prior_same);
+// Even odds before the counts, when none are given.
+inline constexpr double default_prior_same = 0.5;
 
 }  // namespace tallyrates::bayes

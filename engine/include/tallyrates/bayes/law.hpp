@@ -34,6 +34,8 @@ struct prior {
 };
 enum class goal { high, low };        // successes are good, or the counts are defects
 enum class kind { central, hpd };
+inline constexpr goal default_goal = goal::high;
+inline constexpr kind default_kind = kind::central;
 
 struct beta_law {
     double a = 1.0, b = 1.0;
@@ -71,5 +73,9 @@ inline constexpr double max_curve_values = 2e6;
 // RATES.POST.CURVE: `points` rates evenly from 0 to 1 (2 to 10,001), and at
 // each the density of every non-blank group: rows of {rate, d_1, ..., d_G}.
 std::vector<std::vector<std::optional<double>>> curves(const counts& c, std::int64_t points, prior p);
+// Points drawn when none are given: steps of 1 %.
+inline constexpr std::int64_t default_curve_points = 101;
+// The limits of `points`.
+inline constexpr std::int64_t min_curve_points = 2, max_curve_points = 10001;
 
 }  // namespace tallyrates::bayes

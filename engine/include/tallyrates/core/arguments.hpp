@@ -26,6 +26,8 @@ std::size_t position(double value, std::size_t size, const char* name);
 
 // A confidence or credible level strictly between 0 and 1.
 double level(double value, const char* name);
+// The level every function uses when none is given.
+inline constexpr double default_level = 0.95;
 
 // A rate: a fraction from 0 to 1 inclusive.
 double rate(double value, const char* name);

@@ -17,6 +17,8 @@ namespace tallyrates::omnibus {
 
 // The statistic that orders tables from least to most extreme.
 enum class ordering { pearson, lr, probability };
+// RATES.SAME.STAT gives Pearson's X^2 unless asked for G^2.
+inline constexpr ordering default_statistic = ordering::pearson;
 
 // The groups with attempts, as the table the tests work on.
 struct table {

@@ -13,6 +13,7 @@ enum class variance {
     binomial,    // Armitage 1955: p(1-p) * sum n (s - mean s)^2
     conditional  // hypergeometric, the N/(N-1) form (Agresti 2002, section 5.3.5)
 };
+inline constexpr variance default_variance = variance::binomial;
 
 struct result {
     double z = 0;   // signed: positive when the rate rises with the score

@@ -19,6 +19,9 @@
 namespace tallyrates::one_rate {
 
 enum class method { wilson, exact, jeffreys, agresti_coull };
+// Wilson's interval holds its level well at every count (Brown, Cai &
+// DasGupta 2001), so it is the default.
+inline constexpr method default_method = method::wilson;
 
 // The z of a two-sided interval at `level` (1.96 at 0.95).
 double two_sided_z(double level);

@@ -27,6 +27,7 @@
 #include <vector>
 
 #include "tallyrates/pairs/adjust.hpp"
+#include "tallyrates/core/arguments.hpp"
 #include "tallyrates/core/cache.hpp"
 #include "tallyrates/core/counts.hpp"
 #include "tallyrates/pairs/one_rate.hpp"
@@ -40,7 +41,7 @@ enum class test_method { score, exact };
 enum class family { all, against };
 
 struct interval_options {
-    double level = 0.95;
+    double level = arguments::default_level;
     interval_method how = interval_method::newcombe;
     adjust::simultaneous adjust = adjust::simultaneous::none;
     family comparisons = family::all;
@@ -90,7 +91,7 @@ double same_rate_p(const counts& c, const group& a, const group& b, const test_o
 
 // ---- RATES.PAIRS: every pair at once ----
 struct table_options {
-    double level = 0.95;
+    double level = arguments::default_level;
     interval_method how = interval_method::newcombe;
     adjust::simultaneous intervals = adjust::simultaneous::none;  // over all pairs
     adjust::p_values p = adjust::p_values::holm;                   // score-test p, over all pairs

@@ -57,11 +57,18 @@ double half_width(double rate, std::int64_t n, double level, one_rate::method ho
 std::int64_t width(double rate, double half_width, double level, one_rate::method how);
 
 enum class correction { none, continuity };
+// The score test without correction is what RATES.PAIR.P uses by default.
+inline constexpr correction default_correction = correction::none;
+// A zero-failure (success-run) plan unless failures are allowed.
+inline constexpr std::int64_t default_failures = 0;
 // What a cell holding TRUE or FALSE passes (1 or 0); other numbers are refused.
 correction correction_from_number(double value);
 // RATES.PLAN.POWER: attempts per group. Rates in [0, 1] and different,
 // power and alpha in (0, 1) (power 1 is unreachable).
 std::int64_t power(double rate_1, double rate_2, double power, double alpha, correction how);
+// The power and false-alarm risk used when none is given (the usual 80 % and
+// 5 %; common practice, no source).
+inline constexpr double default_power = 0.8, default_alpha = 0.05;
 // The power the formula gives at n per group (for tests and the docs).
 double power_at(double rate_1, double rate_2, double n, double alpha, correction how);
 

@@ -3,7 +3,7 @@
 
 Values are compared with tests/reference/omnibus.csv (scipy 1.10.1,
 statsmodels 0.13.5 and the independent rational enumerator of
-tests/reference/generate.py); each comparison names the row's source.
+tests/reference/omnibus.py); each comparison names the row's source.
 """
 import math
 import os
@@ -112,7 +112,7 @@ class ReferenceValues(SheetCase):
 
 class Routes(SheetCase):
     def test_auto_takes_exact_for_small_counts_and_says_so(self):
-        # e_g6_pilot: brute-force exact p (generate.py).
+        # e_g6_pilot: brute-force exact p (omnibus.py).
         want = [row["value"] for row in harness.reference_rows()
                 if row["case"] == "e_g6_pilot" and row["quantity"] == "exact_p"][0]
         r = self.put_counts([2, 3, 1, 4, 0, 5], [5, 5, 4, 6, 3, 6])
