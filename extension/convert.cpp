@@ -287,6 +287,12 @@ range along_the_counts(const std::vector<std::optional<double>>& values, bool do
     return out;
 }
 
+std::vector<Any> texts_to_row(const std::vector<std::string>& texts) {
+    std::vector<Any> row;
+    for (const auto& t : texts) row.push_back(Any(uno::ou(t)));
+    return row;
+}
+
 range rows_to_array(const std::vector<std::vector<Any>>& rows) {
     range out(static_cast<sal_Int32>(rows.size()));
     for (std::size_t r = 0; r < rows.size(); ++r)

@@ -79,6 +79,8 @@ range along_the_counts(const std::vector<std::optional<double>>& values, bool do
 
 // Rows of cells (all of one length) as an array result.
 range rows_to_array(const std::vector<std::vector<css::uno::Any>>& rows);
+// A header row of texts (the engine writes the titles).
+std::vector<css::uno::Any> texts_to_row(const std::vector<std::string>& texts);
 
 // Label/value rows (RATES.SAME.REPORT) as a two-column array result.
 range to_array(const std::vector<report_row>& rows);

@@ -162,11 +162,7 @@ array rates::postCurve(const caller& document, const cells& successes, const cel
                                              static_cast<double>(bayes::min_curve_points),
                                              static_cast<double>(bayes::max_curve_points), "points");
         // The header names each column: a chart takes its legend from it.
-        std::vector<std::vector<Any>> rows{{Any(ou("rate"))}};
-        for (const auto& g : c.groups()) {
-            const std::string label = c.label_of(g.position);
-            rows[0].push_back(Any(ou(label.empty() ? "position " + std::to_string(g.position) : label)));
-        }
+        std::vector<std::vector<Any>> rows{convert::texts_to_row(bayes::curves_header(c))};
         for (const auto& values : bayes::curves(c, n, prior_of(prior_a, prior_b))) {
             rows.emplace_back();
             for (const auto& v : values) rows.back().push_back(v ? Any(finite(*v)) : Any(OUString()));
@@ -181,10 +177,7 @@ array rates::postTable(const caller& document, const cells& successes, const cel
         const auto names = convert::optional_texts(labels, "labels");
         const auto c = convert::counts_of(document, successes, attempts, names);
         const double lv = convert::number(level, "level").value_or(arguments::default_level);
-        const std::string pct = format_short(lv * 100) + " %";
-        std::vector<std::vector<Any>> rows{{Any(ou("group")), Any(ou("expected rate")), Any(ou("low (" + pct + ")")),
-                                            Any(ou("high (" + pct + ")")), Any(ou("P(best)")),
-                                            Any(ou("expected loss"))}};
+        std::vector<std::vector<Any>> rows{convert::texts_to_row(bayes::summary_header(lv))};
         for (const auto& r : bayes::summary(c, lv, goal_of(goal), prior_of(prior_a, prior_b), &across_cache_)) {
             const std::string label = c.label_of(r.position);
             rows.push_back({label.empty() ? Any(static_cast<double>(r.position)) : Any(ou(label)), Any(finite(r.mean)),

@@ -5,6 +5,7 @@
 #include "../guard.hpp"
 #include "keywords.hpp"
 #include "tallyrates/core/errors.hpp"
+#include "tallyrates/core/text.hpp"
 #include "tallyrates/omnibus/check.hpp"
 #include "tallyrates/omnibus/report.hpp"
 #include "tallyrates/omnibus/residuals.hpp"
@@ -61,7 +62,7 @@ OUString rates::check(const caller& document, const cells& successes, const cell
                       const Any& labels, const Any& i, const Any& j) {
     return guarded([&] {
         const auto in = read_inputs(document, successes, attempts, method, Any(), Any(), labels);
-        if (!in.problem.empty()) return ou("problem: " + in.problem);
+        if (!in.problem.empty()) return ou(problem_text(in.problem));
         const positions_asked positions{convert::number(i, "i"), convert::number(j, "j")};
         return ou(check_text(in.counts.successes, in.counts.attempts, in.labels, &in.options, &cache_, positions));
     });

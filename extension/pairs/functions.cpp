@@ -28,13 +28,6 @@ pairwise::interval_options interval_options(const Any& level, const Any& method,
     return o;
 }
 
-// "95 % each" or "95 % jointly, Bonferroni": what the interval columns hold.
-std::string level_words(double level, adjust::simultaneous joint) {
-    const std::string pct = format_short(level * 100) + " %";
-    if (joint == adjust::simultaneous::none) return pct + " each";
-    return pct + " jointly, " + (joint == adjust::simultaneous::bonferroni ? "Bonferroni" : "Sidak");
-}
-
 // Header, one row per pair, then blank rows up to one per pair of rows of
 // the range (at most 2,000 rows), so that a selection made for the range
 // shows blanks rather than #N/A below the table.
@@ -47,13 +40,10 @@ array pairs_array(const counts& c, const std::vector<pairwise::pair_row>& rows, 
         const std::string label = c.label_of(pos);
         return label.empty() ? Any(static_cast<double>(pos)) : Any(ou(label));
     };
-    const std::string pairs_text = count_of(rows.size(), "pair", "pairs");
-    const Any header[7] = {Any(ou("group i (" + pairs_text + ", " + std::to_string(rows.size() + 1) + " rows)")),
-                           Any(ou("group j")), Any(ou("rate i - rate j")),
-                           Any(ou("low (" + level_words(o.level, o.intervals) + ")")),
-                           Any(ou("high (" + level_words(o.level, o.intervals) + ")")), Any(ou("p (score test)")),
-                           Any(ou("p adjusted (" + std::string(adjust_word) + ")"))};
-    out.getArray()[0] = css::uno::Sequence<Any>(header, 7);
+    css::uno::Sequence<Any> header(7);
+    const auto titles = pairwise::pairs_header(o, rows.size(), adjust_word);
+    for (sal_Int32 col = 0; col < 7; ++col) header.getArray()[col] <<= ou(titles[static_cast<std::size_t>(col)]);
+    out.getArray()[0] = header;
     for (std::size_t k = 0; k < height - 1; ++k) {
         css::uno::Sequence<Any> line(7);
         if (k < rows.size()) {
@@ -72,7 +62,7 @@ array pairs_array(const counts& c, const std::vector<pairwise::pair_row>& rows, 
 // A problem with the input, in the first cell of the table.
 array problem_array(const std::string& problem) {
     array out(1);
-    const Any cell(ou("problem: " + problem));
+    const Any cell(ou(problem_text(problem)));
     out.getArray()[0] = css::uno::Sequence<Any>(&cell, 1);
     return out;
 }

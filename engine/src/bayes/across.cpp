@@ -5,6 +5,7 @@
 
 #include "bayes/law_math.hpp"
 #include "bayes/rate_axis.hpp"
+#include "tallyrates/core/text.hpp"
 
 namespace tallyrates::bayes {
 
@@ -40,6 +41,11 @@ double best(std::span<const beta_law> laws, std::size_t i, goal g, across_cache*
 double loss(std::span<const beta_law> laws, std::size_t i, goal g, across_cache* cache) {
     check_groups(laws.size(), max_groups_best, "The expected loss");
     return pass(laws, g, detail::answers::expected, cache).loss.at(i);
+}
+
+std::vector<std::string> summary_header(double level) {
+    const std::string pct = format_short(level * 100) + " %";
+    return {"group", "expected rate", "low (" + pct + ")", "high (" + pct + ")", "P(best)", "expected loss"};
 }
 
 std::vector<summary_row> summary(const counts& c, double level, goal g, prior p, across_cache* cache) {

@@ -138,4 +138,13 @@ std::vector<std::vector<std::optional<double>>> curves(const counts& c, std::int
     return rows;
 }
 
+std::vector<std::string> curves_header(const counts& c) {
+    std::vector<std::string> header{"rate"};
+    for (const auto& g : c.groups()) {
+        const std::string label = c.label_of(g.position);
+        header.push_back(label.empty() ? "position " + std::to_string(g.position) : label);
+    }
+    return header;
+}
+
 }  // namespace tallyrates::bayes

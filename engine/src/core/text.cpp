@@ -24,6 +24,8 @@ std::string format_grouped(std::int64_t v) {
     return v < 0 ? "-" + out : out;
 }
 
+std::string problem_text(std::string_view why) { return "problem: " + std::string(why); }
+
 std::string format_short(double v) {
     if (std::isfinite(v) && v == std::floor(v) && std::fabs(v) < 1e15) return format_number(v);
     char buf[64];

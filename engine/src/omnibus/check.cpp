@@ -34,7 +34,7 @@ std::string check_text(const cell_line& successes, const cell_line& attempts,
         c = counts::from_entries(successes, attempts, labels);
         check_positions(c, positions);
     } catch (const invalid_input& e) {
-        return std::string("problem: ") + e.what();
+        return problem_text(e.what());
     }
     const auto groups = c.with_attempts();
     std::string text = "ok: " + count_of(c.groups().size(), "group", "groups") + ", " +

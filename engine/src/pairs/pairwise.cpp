@@ -289,4 +289,26 @@ std::vector<pair_row> pairs_table(const counts& c, const table_options& o, p_cac
     return rows;
 }
 
+namespace {
+
+// "95 % each" or "95 % jointly, Bonferroni": what the interval columns hold.
+std::string level_words(double level, adjust::simultaneous joint) {
+    const std::string pct = format_short(level * 100) + " %";
+    if (joint == adjust::simultaneous::none) return pct + " each";
+    return pct + " jointly, " + (joint == adjust::simultaneous::bonferroni ? "Bonferroni" : "Sidak");
+}
+
+}  // namespace
+
+std::vector<std::string> pairs_header(const table_options& o, std::size_t pairs, std::string_view adjust_word) {
+    const std::string level = level_words(o.level, o.intervals);
+    return {"group i (" + count_of(pairs, "pair", "pairs") + ", " + std::to_string(pairs + 1) + " rows)",
+            "group j",
+            "rate i - rate j",
+            "low (" + level + ")",
+            "high (" + level + ")",
+            "p (score test)",
+            "p adjusted (" + std::string(adjust_word) + ")"};
+}
+
 }  // namespace tallyrates::pairwise

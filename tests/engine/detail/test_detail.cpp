@@ -8,7 +8,6 @@
 #include <atomic>
 #include <cmath>
 #include <numbers>
-#include <sstream>
 #include <string>
 #include <vector>
 
@@ -25,17 +24,6 @@
 using namespace tallyrates;
 namespace support = tallyrates::testing;
 
-namespace {
-
-std::vector<std::int64_t> numbers_in(const std::string& s) {
-    std::istringstream in(s);
-    std::vector<std::int64_t> out;
-    for (std::int64_t v; in >> v;) out.push_back(v);
-    return out;
-}
-
-}  // namespace
-
 // P(X = x) from the ratio recurrence against the exact binomial ratio
 // (mpmath, 50 digits): the recurrence's error grows like steps * eps, so
 // 1e-12 relative holds up to draws of 600 (hypergeometric.hpp).
@@ -43,7 +31,7 @@ TEST(Hypergeometric, MatchesTheExactBinomialRatio) {
     std::size_t checked = 0;
     for (const auto& row : support::csv_rows("detail.csv")) {
         if (row[0] != "hypergeometric") continue;
-        const auto in = numbers_in(row[1]);  // population, marked, draws, x
+        const auto in = support::split_ints(row[1]);  // population, marked, draws, x
         std::vector<double> pmf;
         const auto sup = detail::hypergeometric_pmf(in[0], in[1], in[2], pmf);
         ASSERT_GE(in[3], sup.first);
@@ -61,7 +49,7 @@ TEST(Generator, MatchesThePublishedAlgorithm) {
     std::size_t checked = 0;
     for (const auto& row : support::csv_rows("detail.csv")) {
         if (row[0].rfind("xoshiro", 0) != 0) continue;
-        const auto in = numbers_in(row[1]);  // seed, index
+        const auto in = support::split_ints(row[1]);  // seed, index
         detail::xoshiro256ss g(static_cast<std::uint64_t>(in[0]));
         if (row[0] == "xoshiro_after_jump") {
             for (int k = 0; k < 3; ++k) g.next();

@@ -10,6 +10,7 @@
 #pragma once
 
 #include <span>
+#include <string>
 #include <tuple>
 #include <vector>
 
@@ -52,6 +53,8 @@ struct summary_row {
     interval bounds;  // central, at `level`
     double best = 0, loss = 0;
 };
+// Its header: six column titles, the bounds saying their level.
+std::vector<std::string> summary_header(double level);
 std::vector<summary_row> summary(const counts& c, double level, goal g, prior p, across_cache* cache = nullptr);
 
 }  // namespace tallyrates::bayes

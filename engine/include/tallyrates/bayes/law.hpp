@@ -21,6 +21,7 @@
 
 #include <cstdint>
 #include <optional>
+#include <string>
 #include <vector>
 
 #include "tallyrates/core/counts.hpp"
@@ -73,6 +74,9 @@ inline constexpr double max_curve_values = 2e6;
 // RATES.POST.CURVE: `points` rates evenly from 0 to 1 (2 to 10,001), and at
 // each the density of every non-blank group: rows of {rate, d_1, ..., d_G}.
 std::vector<std::vector<std::optional<double>>> curves(const counts& c, std::int64_t points, prior p);
+// Its header: "rate", then each non-blank group's label ("position 4" when
+// it has none), which a chart takes as its legend.
+std::vector<std::string> curves_header(const counts& c);
 // Points drawn when none are given: steps of 1 %.
 inline constexpr std::int64_t default_curve_points = 101;
 // The limits of `points`.

@@ -4,6 +4,7 @@
 
 #include <cstdint>
 #include <string>
+#include <string_view>
 
 namespace tallyrates {
 
@@ -19,6 +20,10 @@ std::string format_short(double v);
 // A whole number with thousands separators, as rules are quoted in
 // sentences: 1000 -> "1,000".
 std::string format_grouped(std::int64_t v);
+
+// How a cell that answers in words reports bad input: "problem: " and the
+// sentence (RATES.CHECK, the first cell of a table).
+std::string problem_text(std::string_view why);
 
 // "1 group" / "3 groups".
 std::string count_of(std::size_t n, const char* singular, const char* plural);

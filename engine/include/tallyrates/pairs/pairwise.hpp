@@ -24,12 +24,14 @@
 
 #include <cstdint>
 #include <span>
+#include <string>
+#include <string_view>
 #include <vector>
 
-#include "tallyrates/pairs/adjust.hpp"
 #include "tallyrates/core/arguments.hpp"
 #include "tallyrates/core/cache.hpp"
 #include "tallyrates/core/counts.hpp"
+#include "tallyrates/pairs/adjust.hpp"
 #include "tallyrates/pairs/one_rate.hpp"
 
 namespace tallyrates::pairwise {
@@ -106,5 +108,9 @@ struct pair_row {
 // every number is what the single-cell functions give for that pair (the
 // same calls), so a table and the cells beside it agree to the last bit.
 std::vector<pair_row> pairs_table(const counts& c, const table_options& o, p_cache* cache = nullptr);
+// The table's header: seven column titles for a table of `pairs` rows, the
+// interval columns saying their level ("95 % each" or "95 % jointly,
+// Bonferroni"), the last the adjustment asked for.
+std::vector<std::string> pairs_header(const table_options& o, std::size_t pairs, std::string_view adjust_word);
 
 }  // namespace tallyrates::pairwise
