@@ -4,11 +4,11 @@
 
 #include <algorithm>
 #include <boost/math/special_functions/beta.hpp>
-#include <boost/math/special_functions/gamma.hpp>
 #include <cmath>
 #include <limits>
 #include <tuple>
 
+#include "bayes/law_math.hpp"
 #include "detail/vector_quadrature.hpp"
 #include "tallyrates/core/errors.hpp"
 #include "tallyrates/core/text.hpp"
@@ -57,10 +57,7 @@ struct placed_law {
     double a, b, low, high_gap;
     double high() const { return 1 - high_gap; }
     double mean() const { return a / (a + b); }
-    double sd() const {
-        const double n = a + b;
-        return std::sqrt(a * b / (n * n * (n + 1)));
-    }
+    double sd() const { return detail::sd(beta_law{a, b}); }
 };
 
 placed_law place(const beta_law& law, double tail, bool mirrored) {
@@ -101,9 +98,9 @@ double log_density_at(const placed_law& law, const axis_point& p) {
                                     : boost::math::ibeta_derivative(law.b, law.a, p.s_gap);
         return d > 0 ? std::log(d) : -HUGE_VAL;
     } catch (const std::overflow_error&) {
-        // Next to an end where the density is infinite (a parameter below 1).
-        return (law.a - 1) * std::log(p.s) + (law.b - 1) * std::log(p.s_gap) - boost::math::lgamma(law.a) -
-               boost::math::lgamma(law.b) + boost::math::lgamma(law.a + law.b);
+        // Next to an end where the density is infinite (a parameter below 1):
+        // in logs, where the parameters are small and log-gamma is exact enough.
+        return (law.a - 1) * std::log(p.s) + (law.b - 1) * std::log(p.s_gap) - detail::log_beta(law.a, law.b);
     }
 }
 
