@@ -98,6 +98,8 @@ public:
 
     // ---- planning family (planning/functions.cpp) ----
     double SAL_CALL planDemo(const caller& document, double rate, double confidence, const Any& failures) override;
+    double SAL_CALL planMore(const caller& document, double rate, double confidence, double run,
+                             double failed) override;
     double SAL_CALL planWidth(const caller& document, double rate, double half_width, const Any& level,
                               const Any& method) override;
     double SAL_CALL planPower(const caller& document, double rate_1, double rate_2, const Any& power,

@@ -62,6 +62,8 @@ PLAN = [  # label, formula, number format
      "0"),
     ("Boards for the best air oven's pass rate to within ±1 point (95 % Wilson interval), in all",
      "=RATES.PLAN.WIDTH(INDEX($D$5:$D$7;%s);0.01)" % BEST_AIR, "0"),
+    ("Further pilot boards, all passing, before the pilot's own record shows the plant target at 95 % confidence",
+     "=RATES.PLAN.MORE($B$3;0.95;C8;C8-B8)", "0"),
 ]
 
 

@@ -54,7 +54,7 @@ def main():
         errors += ["%s%d" % (c, r) for c in "FGHKLM" for r in range(5, 12) if lo.cell_text(cell("%s%d" % (c, r))).startswith("Err:")]
         print()
         print("  " + cell("A64").getString())
-        for r in range(65, 71):
+        for r in range(65, 72):
             shown = lo.cell_text(cell("G%d" % r))
             print("  %-100s %s" % (cell("A%d" % r).getString(), shown))
             if shown.startswith("Err:") or not shown:

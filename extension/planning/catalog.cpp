@@ -33,6 +33,12 @@ constexpr argument failures{
     "costs more units, but one stray failure no longer sinks the test. A whole number.",
     static_cast<double>(planning::default_failures)};
 constexpr std::array demo_args{demo_rate, demo_confidence, failures};
+constexpr std::array more_args{
+    demo_rate, demo_confidence,
+    argument{"run", "Units tested so far (the record to build on), a whole number: 0 when starting afresh.", ""},
+    argument{"failed", "How many of those units failed, a whole number from 0 to run. Each failure makes the "
+                       "record longer to build.",
+             ""}};
 
 constexpr argument expected_rate{
     "rate",
@@ -89,6 +95,13 @@ constexpr std::array table{
              "0.99 at 95 % confidence takes 299 units in a row." WHY_502_PLAN WHY_523_PLAN
              " (a rate of 1: 100 % can never be shown by testing).",
              demo_args},
+    function{"planMore", "RATES.PLAN.MORE",
+             "Further units to test, every one passing, before the whole record (run units so far, failed of them "
+             "failed, and the new ones) shows the rate is at least the one given with the chosen confidence, judged as "
+             "RATES.PLAN.DEMO judges a plan; 0 when the record already shows it. With 120 units run and none "
+             "failed, 0.99 at 95 % confidence takes 179 more." WHY_502_PLAN WHY_523_PLAN
+             " (a rate of 1: 100 % can never be shown by testing).",
+             more_args},
     function{"planWidth", "RATES.PLAN.WIDTH",
              "Attempts needed so that the confidence interval of RATES.ONE.LOW and RATES.ONE.HIGH is no wider "
              "than plus or minus half_width, if the rate comes out as expected: the smallest such number (counts "

@@ -34,6 +34,14 @@ double rates::planDemo(const caller&, double rate, double confidence, const Any&
     });
 }
 
+double rates::planMore(const caller&, double rate, double confidence, double run, double failed) {
+    return guarded([&] {
+        const auto units = arguments::whole(run, 0, max_count, "run");
+        const auto failures = arguments::whole(failed, 0, max_count, "failed");
+        return attempts_of(planning::more_units(rate, confidence, units, failures));
+    });
+}
+
 double rates::planWidth(const caller&, double rate, double half_width, const Any& level, const Any& method) {
     return guarded([&] {
         return attempts_of(planning::width(rate, half_width, convert::number(level, "level").value_or(arguments::default_level),

@@ -16,6 +16,13 @@ void BM_demo(benchmark::State& state) {
 }
 BENCHMARK(BM_demo)->Arg(0)->Arg(3)->Arg(100)->Unit(benchmark::kMicrosecond);
 
+// RATES.PLAN.MORE after 120 units with 0, 3 or 100 failures (0.99 at 95 %).
+void BM_more(benchmark::State& state) {
+    const std::int64_t failed = state.range(0), run = 120 + failed;
+    for (auto _ : state) benchmark::DoNotOptimize(planning::more_units(0.99, 0.95, run, failed));
+}
+BENCHMARK(BM_more)->Arg(0)->Arg(3)->Arg(100)->Unit(benchmark::kMicrosecond);
+
 void BM_width(benchmark::State& state) {
     const auto how = static_cast<one_rate::method>(state.range(0));
     for (auto _ : state) benchmark::DoNotOptimize(planning::width(0.97, 0.005, 0.95, how));

@@ -24,6 +24,8 @@ def formula_of(row, r):
     a = row["args"]
     if row["what"] == "plan_demo":
         return "=RATES.PLAN.DEMO(%s;%s;%s)" % (a[0], a[1], a[2])
+    if row["what"] == "plan_more":
+        return "=RATES.PLAN.MORE(%s;%s;%s;%s)" % (a[0], a[1], a[2], a[3])
     if row["what"] == "plan_width":
         return '=RATES.PLAN.WIDTH(%s;%s;%s;"%s")' % (a[0], a[1], a[2], METHOD_WORD[a[3]])
     if row["what"] == "plan_power":
@@ -43,7 +45,7 @@ class Planning(SheetCase):
             self.assertEqual(self.value_of("H1"), row["value"],
                              "%s %s (%s)" % (text, row["quantity"], row["source"]))
             checked += 1
-        self.assertEqual(checked, 10 + 36 + 12 + 7)
+        self.assertEqual(checked, 10 + 11 + 36 + 12 + 7)
 
     def test_defaults_and_switches(self):
         # Published: Fleiss, Levin & Paik (2003), 686 per group; 726 with the
@@ -60,6 +62,9 @@ class Planning(SheetCase):
         self.formula("D2", "=RATES.PLAN.POWER(0.1;0.15;;;E1)")
         self.assertEqual(self.value_of("D2"), 726)
         # Wilson is the default method of RATES.PLAN.WIDTH, as of RATES.ONE.LOW.
+        # A record that already shows the target needs nothing more, however long.
+        self.formula("D5", "=RATES.PLAN.MORE(0.999999999999;0.95;1E15;0)")
+        self.assertEqual(self.value_of("D5"), 0)
         self.formula("D3", "=RATES.PLAN.WIDTH(0.9;0.02)")
         self.formula("D4", '=RATES.PLAN.WIDTH(0.9;0.02;0.95;"wilson")')
         self.assertEqual(self.value_of("D3"), self.value_of("D4"))
@@ -83,12 +88,16 @@ class Planning(SheetCase):
                      "=RATES.PLAN.WIDTH(0.5;-0.1)", '=RATES.PLAN.WIDTH(0.5;0.05;0.95;"normal")',
                      "=RATES.PLAN.POWER(0.1;0.2;;;2)", '=RATES.PLAN.POWER(0.1;0.2;;;"yes")',
                      "=RATES.PLAN.POWER(0.1;0.2;0.8;1)", "=RATES.PLAN.AHEAD(%s;1;1;0.95)" % r,
-                     "=RATES.PLAN.AHEAD(%s;1;2;0.95;0)" % r):
+                     "=RATES.PLAN.AHEAD(%s;1;2;0.95;0)" % r,
+                     # More failures than units, a fractional or negative record.
+                     "=RATES.PLAN.MORE(0.99;0.95;10;11)", "=RATES.PLAN.MORE(0.99;0.95;10.5;0)",
+                     "=RATES.PLAN.MORE(0.99;0.95;-1;0)"):
             self.formula("D1", text)
             self.assertEqual(self.shown("D1"), "Err:502", text)
         for text in ("=RATES.PLAN.DEMO(1;0.95)", "=RATES.PLAN.WIDTH(0.5;0)", "=RATES.PLAN.POWER(0.1;0.1)",
                      "=RATES.PLAN.POWER(0.1;0.15;1)", "=RATES.PLAN.AHEAD(%s;1;2;1)" % r,
-                     "=RATES.PLAN.DEMO(0.999999999999;0.95)"):
+                     "=RATES.PLAN.DEMO(0.999999999999;0.95)", "=RATES.PLAN.MORE(1;0.95;100;0)",
+                     "=RATES.PLAN.MORE(0.999999999999;0.95;100;0)"):
             self.formula("D2", text)
             self.assertEqual(self.shown("D2"), "Err:523", text)
 

@@ -51,6 +51,49 @@ def demo_rows(w):
         row(w, "demo", [], [], "plan_demo|%s|%s|%d" % (r, c, f), n, source)
 
 
+# Further units after a record of `run` with `failed` failures. Invented; a
+# fresh start, records short of the target, one already showing it, failures
+# on record, and a rate close to 1.
+MORE_CASES = [  # (rate, confidence, run, failed)
+    ("0.99", "0.95", 120, 0), ("0.99", "0.95", 0, 0), ("0.99", "0.95", 400, 0), ("0.99", "0.95", 299, 0),
+    ("0.99", "0.95", 298, 0), ("0.95", "0.9", 60, 2), ("0.999", "0.95", 1000, 1), ("0.9", "0.99", 45, 3),
+    ("0.9999", "0.9", 5000, 0), ("0.98", "0.8", 250, 4), ("0.9", "0.95", 200, 12),
+]
+
+
+def mp_tail(n, failed, rate):
+    """P(at most `failed` failures in n units | rate), summed exactly in 50-digit mpmath."""
+    with mpmath.workdps(50):
+        q = 1 - mpmath.mpf(rate)
+        return mpmath.fsum(mpmath.binomial(n, k) * q ** k * (1 - q) ** (n - k) for k in range(failed + 1))
+
+
+def more_rows(w):
+    source = ("mpmath " + mpmath.__version__ + " (50 digits): exact binomial tail, the smallest m by doubling and "
+              "bisection; " + SCIPY + " stats.beta.ppf one-sided Clopper-Pearson bound agrees")
+    for r, c, run, failed in MORE_CASES:
+        shows = lambda m: mp_tail(run + m, failed, r) <= 1 - mpmath.mpf(c)  # noqa: E731
+        m = 0
+        if not shows(0):
+            high = 1
+            while not shows(high):
+                high *= 2
+            low = high // 2 + 1 if high > 1 else 1
+            while low < high:
+                mid = (low + high) // 2
+                low, high = (low, mid) if shows(mid) else (mid + 1, high)
+            m = low
+        assert shows(m) and (m == 0 or not shows(m - 1))
+        # The same claim by the one-sided Clopper-Pearson lower bound of the whole record.
+        n = run + m
+        bound = scipy.stats.beta.ppf(1 - float(c), n - failed, failed + 1)
+        assert bound >= float(r) - 1e-12, (r, c, run, failed, m, bound)
+        if m > 0:
+            before = scipy.stats.beta.ppf(1 - float(c), n - 1 - failed, failed + 1)
+            assert before < float(r) + 1e-12, (r, c, run, failed, m, before)
+        row(w, "more", [], [], "plan_more|%s|%s|%d|%d" % (r, c, run, failed), m, source)
+
+
 WIDTH_CASES = [  # (expected rate, half-width, level)
     ("0.5", "0.03", "0.95"), ("0.9", "0.02", "0.95"), ("0.97", "0.01", "0.95"), ("0.02", "0.01", "0.9"),
     ("0", "0.05", "0.95"), ("1", "0.01", "0.99"), ("0.3", "0.1", "0.8"), ("0.999", "0.002", "0.95"),
@@ -150,7 +193,7 @@ def ahead_plan_rows(w):
         row(w, "plan_ahead", [s1, s2], [n1, n2], "plan_ahead|%d|%d|%s" % (prior, prior, c), m, source)
 
 
-SECTIONS = ['demo_rows', 'width_rows', 'power_rows', 'ahead_plan_rows']
+SECTIONS = ['demo_rows', 'more_rows', 'width_rows', 'power_rows', 'ahead_plan_rows']
 
 
 if __name__ == "__main__":

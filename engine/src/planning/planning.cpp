@@ -65,7 +65,10 @@ std::int64_t first_meeting_from(std::int64_t low, F meets, const char* what) {
 
 // ---- demonstration ----
 
-std::int64_t demonstration(double rate, double confidence, std::int64_t failures) {
+namespace {
+
+// The target of a demonstration: a rate in (0, 1) and a confidence level.
+void check_target(double rate, double confidence) {
     if (!(rate > 0 && rate <= 1))
         arguments::out_of_range("rate", rate, "lie above 0 and at most 1, for example 0.99 for 99 %");
     arguments::level(confidence, "confidence");
@@ -73,17 +76,43 @@ std::int64_t demonstration(double rate, double confidence, std::int64_t failures
         throw unreachable_target(
             "No number of attempts demonstrates a rate of 100 %: every finite test leaves some doubt. Use a "
             "rate below 1, such as 0.999.");
+}
+
+// n units with at most f failures show the rate at the confidence:
+// P(at most f failures in n | rate) <= 1 - confidence.
+bool demonstrates(double rate, double confidence, std::int64_t n, std::int64_t failures) {
+    if (n <= failures) return false;
+    return boost::math::cdf(boost::math::binomial_distribution<double>(static_cast<double>(n), 1 - rate),
+                            static_cast<double>(failures)) <= 1 - confidence;
+}
+
+}  // namespace
+
+std::int64_t demonstration(double rate, double confidence, std::int64_t failures) {
+    check_target(rate, confidence);
     // Success-run: n ln(R) <= ln(1 - C). Both logarithms by log1p: R - 1 is exact for R in [0.5, 1].
     const std::int64_t zero_failures = whole_at_least(std::log1p(-confidence) / std::log1p(rate - 1));
     if (failures == 0) return zero_failures;
     // With f failures allowed: the binomial tail P(at most f failures in n) falls as n grows and is at
     // most R^n, so the answer is above both f and the zero-failure size.
-    const double tail = 1 - confidence, defect = 1 - rate;
-    const auto meets = [&](std::int64_t n) {
-        return boost::math::cdf(boost::math::binomial_distribution<double>(static_cast<double>(n), defect),
-                                static_cast<double>(failures)) <= tail;
-    };
+    const auto meets = [&](std::int64_t n) { return demonstrates(rate, confidence, n, failures); };
     return first_meeting_from(std::max<std::int64_t>(zero_failures, failures + 1), meets, "attempts");
+}
+
+std::int64_t more_units(double rate, double confidence, std::int64_t run, std::int64_t failed) {
+    if (run < 0) arguments::out_of_range("run", static_cast<double>(run), "be a whole number of units, 0 or more");
+    if (failed < 0 || failed > run)
+        arguments::out_of_range("failed", static_cast<double>(failed),
+                                "be a whole number from 0 to run (" + std::to_string(run) + "): failures among the units run");
+    check_target(rate, confidence);
+    // A record that already shows the rate needs nothing more, however long
+    // it is (a run beyond the planning cap included).
+    if (failed == 0 ? static_cast<double>(run) * std::log1p(rate - 1) <= std::log1p(-confidence)
+                    : demonstrates(rate, confidence, run, failed))
+        return 0;
+    // (The success-run size takes a ratio within 1e-12 of a whole number as
+    // that number, so it can equal a run the test above just missed.)
+    return std::max<std::int64_t>(0, demonstration(rate, confidence, failed) - run);
 }
 
 // ---- interval width ----

@@ -64,6 +64,12 @@ TEST(Extremes, PlanningAnswersOrRefuses) {
             for (std::int64_t f : {0, 1, 1000000})
                 answer_or_error("demonstration(" + std::to_string(r) + ", " + std::to_string(c) + ", " + std::to_string(f) + ")",
                                 [&] { return static_cast<double>(planning::demonstration(r, c, f)); }, 1, big);
+            for (std::int64_t run : {std::int64_t{0}, std::int64_t{1000}, std::int64_t{1000000000000000}})
+                for (std::int64_t failed : {std::int64_t{0}, std::int64_t{1}, std::int64_t{1000}})
+                    answer_or_error("more_units(" + std::to_string(r) + ", " + std::to_string(c) + ", " +
+                                        std::to_string(run) + ", " + std::to_string(failed) + ")",
+                                    [&] { return static_cast<double>(planning::more_units(r, c, run, failed)); }, 0,
+                                    big);
             for (double half : {tiny, 1e-9, 1e-4, 0.49})
                 for (auto m : {one_rate::method::wilson, one_rate::method::exact, one_rate::method::jeffreys,
                                one_rate::method::agresti_coull})

@@ -66,6 +66,9 @@ TEST(Planning, ReferenceRows) {
         if (what == "plan_demo") {
             EXPECT_EQ(planning::demonstration(std::stod(f[1]), std::stod(f[2]), std::stoll(f[3])), want)
                 << r.quantity << " " << r.source;
+        } else if (what == "plan_more") {
+            EXPECT_EQ(planning::more_units(std::stod(f[1]), std::stod(f[2]), std::stoll(f[3]), std::stoll(f[4])), want)
+                << r.quantity << " " << r.source;
         } else if (what == "plan_width") {
             EXPECT_EQ(planning::width(std::stod(f[1]), std::stod(f[2]), std::stod(f[3]), method_of(f[4])), want)
                 << r.quantity << " " << r.source;
@@ -91,6 +94,7 @@ TEST(Planning, ReferenceRows) {
         ++checked[what];
     }
     EXPECT_EQ(checked["plan_demo"], 10);
+    EXPECT_EQ(checked["plan_more"], 11);
     EXPECT_EQ(checked["plan_width"], 36);
     EXPECT_EQ(checked["plan_power"], 12);
     EXPECT_EQ(checked["plan_power_pooled"], 5);
@@ -153,6 +157,10 @@ TEST(Planning, BadArgumentsAreInvalidInput) {
     EXPECT_THROW(planning::power(0.1, 0.2, 0.8, 0.0, planning::correction::none), invalid_input);
     EXPECT_THROW(planning::power(0.1, 0.2, 1.2, 0.05, planning::correction::none), invalid_input);
     EXPECT_THROW(planning::correction_from_number(2), invalid_input);
+    EXPECT_THROW(planning::more_units(0.99, 0.95, 10, 11), invalid_input);  // more failed than run
+    EXPECT_THROW(planning::more_units(0.99, 0.95, -1, 0), invalid_input);
+    EXPECT_THROW(planning::more_units(0.99, 0.0, 10, 0), invalid_input);
+    EXPECT_THROW(planning::more_units(1.0, 0.95, 10, 0), unreachable_target);
     EXPECT_EQ(planning::correction_from_number(1), planning::correction::continuity);
     EXPECT_EQ(planning::correction_from_number(0), planning::correction::none);
     EXPECT_THROW(planning::ahead({15, 1}, {3, 1}, 0.0), invalid_input);

@@ -27,6 +27,11 @@
 //   Biometrics 36:343), n = n'/4 (1 + sqrt(1 + 4 / (n' |p1 - p2|)))^2. Each
 //   inverts exactly the normal approximation to the power of the uncorrected
 //   or corrected test, so the smallest whole n is the ceiling.
+// - more (RATES.PLAN.MORE): the fewest further units m, all passing, after
+//   which a record of run + m units with `failed` failures demonstrates the
+//   rate as above: the demonstration size for f = failed, less the run so
+//   far (the binomial tail falls as units are added, so no smaller m can
+//   meet it), 0 when the record already shows the rate.
 // - ahead (RATES.PLAN.AHEAD): the fewest further attempts m of a group, all
 //   successful, after which P(its rate > the other group's) reaches the
 //   confidence (bayes::ahead). The probability rises with m, so m is found by
@@ -49,6 +54,11 @@ inline constexpr double max_attempts = 1e9;
 
 // RATES.PLAN.DEMO. rate in (0, 1] (1 is unreachable), confidence in (0, 1).
 std::int64_t demonstration(double rate, double confidence, std::int64_t failures);
+
+// RATES.PLAN.MORE. run >= 0 units so far, of which 0 <= failed <= run failed
+// (invalid_input otherwise); rate and confidence as for demonstration. The
+// answer is at most max_attempts (unreachable_target beyond it).
+std::int64_t more_units(double rate, double confidence, std::int64_t run, std::int64_t failed);
 
 // Half-width of the interval of RATES.ONE.LOW/HIGH for round(rate n)
 // successes in n attempts.
