@@ -1,6 +1,7 @@
 // addin.hpp - the UNO add-in class. Its worksheet methods (XRates) are
-// defined one file per family (omnibus/, pairs/, bayes/, planning/ functions.cpp),
-// each about ten lines: convert, call the engine, return, inside `guarded`.
+// declared and defined one family per folder (<family>/methods.inc and
+// <family>/functions.cpp), each about ten lines: convert, call the engine,
+// return, inside `guarded`.
 // The XAddIn, XServiceName and XServiceInfo answers and the factory are in
 // addin.cpp; names and descriptions come from the catalog.
 #pragma once
@@ -31,81 +32,13 @@ using array = css::uno::Sequence<css::uno::Sequence<css::uno::Any>>;
 class rates final : public cppu::WeakImplHelper4<org::tallyrates::sheet::XRates, css::sheet::XAddIn,
                                                  css::lang::XServiceName, css::lang::XServiceInfo> {
 public:
-    // ---- omnibus family (omnibus/functions.cpp) ----
-    OUString SAL_CALL check(const caller& document, const cells& successes, const cells& attempts, const Any& method,
-                           const Any& labels, const Any& i, const Any& j) override;
-    double SAL_CALL sameP(const caller& document, const cells& successes, const cells& attempts, const Any& method,
-                          const Any& draws, const Any& seed) override;
-    double SAL_CALL sameStat(const caller& document, const cells& successes, const cells& attempts,
-                             const Any& statistic) override;
-    array SAL_CALL sameReport(const caller& document, const cells& successes, const cells& attempts, const Any& method,
-                              const Any& draws, const Any& seed, const Any& labels) override;
-    double SAL_CALL trendP(const caller& document, const cells& successes, const cells& attempts, const Any& scores,
-                           const Any& variance) override;
-    array SAL_CALL sameResid(const caller& document, const cells& successes, const cells& attempts) override;
-    double SAL_CALL trendZ(const caller& document, const cells& successes, const cells& attempts, const Any& scores,
-                           const Any& variance) override;
-
-    // ---- pairs family (pairs/functions.cpp) ----
-    double SAL_CALL diff(const caller& document, const cells& successes, const cells& attempts, double i,
-                         double j) override;
-    double SAL_CALL diffLow(const caller& document, const cells& successes, const cells& attempts, double i, double j,
-                            const Any& level, const Any& method, const Any& adjust, const Any& family) override;
-    double SAL_CALL diffHigh(const caller& document, const cells& successes, const cells& attempts, double i, double j,
-                             const Any& level, const Any& method, const Any& adjust, const Any& family) override;
-    double SAL_CALL pairP(const caller& document, const cells& successes, const cells& attempts, double i, double j,
-                          const Any& adjust, const Any& method, const Any& family) override;
-    array SAL_CALL pairs(const caller& document, const cells& successes, const cells& attempts, const Any& level,
-                         const Any& method, const Any& adjust, const Any& labels) override;
-    double SAL_CALL oneLow(const caller& document, const cells& successes, const cells& attempts, double i,
-                           const Any& level, const Any& method) override;
-    double SAL_CALL oneHigh(const caller& document, const cells& successes, const cells& attempts, double i,
-                            const Any& level, const Any& method) override;
-
-    // ---- Bayesian family (bayes/functions.cpp) ----
-    double SAL_CALL postMean(const caller& document, const cells& successes, const cells& attempts, double i,
-                             const Any& prior_a, const Any& prior_b) override;
-    double SAL_CALL postLow(const caller& document, const cells& successes, const cells& attempts, double i,
-                            const Any& level, const Any& kind, const Any& prior_a, const Any& prior_b) override;
-    double SAL_CALL postHigh(const caller& document, const cells& successes, const cells& attempts, double i,
-                             const Any& level, const Any& kind, const Any& prior_a, const Any& prior_b) override;
-    double SAL_CALL postAbove(const caller& document, const cells& successes, const cells& attempts, double i,
-                              double rate, const Any& goal, const Any& prior_a, const Any& prior_b) override;
-    double SAL_CALL postNext(const caller& document, const cells& successes, const cells& attempts, double i,
-                             double m, const Any& k, const Any& prior_a, const Any& prior_b) override;
-
-    double SAL_CALL postAhead(const caller& document, const cells& successes, const cells& attempts, double i, double j,
-                              const Any& prior_a, const Any& prior_b) override;
-    array SAL_CALL postOrder(const caller& document, const cells& successes, const cells& attempts,
-                             const Any& prior_a, const Any& prior_b) override;
-    double SAL_CALL postBest(const caller& document, const cells& successes, const cells& attempts, double i,
-                             const Any& goal, const Any& prior_a, const Any& prior_b) override;
-    double SAL_CALL postLoss(const caller& document, const cells& successes, const cells& attempts, double i,
-                             const Any& goal, const Any& prior_a, const Any& prior_b) override;
-    double SAL_CALL postSame(const caller& document, const cells& successes, const cells& attempts,
-                             const Any& prior_same, const Any& prior_a, const Any& prior_b) override;
-
-    array SAL_CALL postCurve(const caller& document, const cells& successes, const cells& attempts,
-                             const Any& points, const Any& prior_a, const Any& prior_b, const Any& labels) override;
-    array SAL_CALL postTable(const caller& document, const cells& successes, const cells& attempts,
-                             const Any& level, const Any& goal, const Any& prior_a, const Any& prior_b,
-                             const Any& labels) override;
-
-    double SAL_CALL postDiffLow(const caller& document, const cells& successes, const cells& attempts, double i,
-                                double j, const Any& level, const Any& prior_a, const Any& prior_b) override;
-    double SAL_CALL postDiffHigh(const caller& document, const cells& successes, const cells& attempts, double i,
-                                 double j, const Any& level, const Any& prior_a, const Any& prior_b) override;
-
-    // ---- planning family (planning/functions.cpp) ----
-    double SAL_CALL planDemo(const caller& document, double rate, double confidence, const Any& failures) override;
-    double SAL_CALL planMore(const caller& document, double rate, double confidence, double run,
-                             double failed) override;
-    double SAL_CALL planWidth(const caller& document, double rate, double half_width, const Any& level,
-                              const Any& method) override;
-    double SAL_CALL planPower(const caller& document, double rate_1, double rate_2, const Any& power,
-                              const Any& alpha, const Any& correction) override;
-    double SAL_CALL planAhead(const caller& document, const cells& successes, const cells& attempts, double i,
-                              double j, double confidence, const Any& prior_a, const Any& prior_b) override;
+    // ---- the worksheet methods (XRates): each family declares its own in
+    // <family>/methods.inc, read here inside the class, and defines them in
+    // <family>/functions.cpp ----
+#include "omnibus/methods.inc"
+#include "pairs/methods.inc"
+#include "bayes/methods.inc"
+#include "planning/methods.inc"
 
     // ---- XAddIn, XServiceName, XServiceInfo (addin.cpp) ----
     OUString SAL_CALL getProgrammaticFuntionName(const OUString& display) override;
