@@ -126,21 +126,31 @@ array rates::postOrder(const caller& document, const cells& successes, const cel
     });
 }
 
+namespace {
+
+// Every group's law and the index of the one at position i among them.
+std::pair<std::vector<bayes::beta_law>, std::size_t> laws_and_index(const caller& document, const cells& successes,
+                                                                    const cells& attempts, double i,
+                                                                    const Any& prior_a, const Any& prior_b) {
+    const auto c = convert::counts_of(document, successes, attempts);
+    return {bayes::posteriors(c, prior_of(prior_a, prior_b)), c.index_of(c.at_position(i, "i"))};
+}
+
+}  // namespace
+
 double rates::postBest(const caller& document, const cells& successes, const cells& attempts, double i,
                        const Any& goal, const Any& prior_a, const Any& prior_b) {
     return guarded([&] {
-        const auto c = convert::counts_of(document, successes, attempts);
-        return finite(
-            bayes::best(bayes::posteriors(c, prior_of(prior_a, prior_b)), c.index_of(c.at_position(i, "i")), goal_of(goal), &across_cache_));
+        const auto [laws, k] = laws_and_index(document, successes, attempts, i, prior_a, prior_b);
+        return finite(bayes::best(laws, k, goal_of(goal), &across_cache_));
     });
 }
 
 double rates::postLoss(const caller& document, const cells& successes, const cells& attempts, double i,
                        const Any& goal, const Any& prior_a, const Any& prior_b) {
     return guarded([&] {
-        const auto c = convert::counts_of(document, successes, attempts);
-        return finite(
-            bayes::loss(bayes::posteriors(c, prior_of(prior_a, prior_b)), c.index_of(c.at_position(i, "i")), goal_of(goal), &across_cache_));
+        const auto [laws, k] = laws_and_index(document, successes, attempts, i, prior_a, prior_b);
+        return finite(bayes::loss(laws, k, goal_of(goal), &across_cache_));
     });
 }
 

@@ -77,23 +77,29 @@ double rates::diff(const caller& document, const cells& successes, const cells& 
     });
 }
 
+namespace {
+
+interval difference_bounds(const caller& document, const cells& successes, const cells& attempts, double i, double j,
+                           const Any& level, const Any& method, const Any& adjust, const Any& family) {
+    const auto o = interval_options(level, method, adjust, family);
+    const auto c = convert::counts_of(document, successes, attempts);
+    const auto [a, b] = pairwise::pair_at(c, i, j);
+    return pairwise::difference_interval(c, a, b, o);
+}
+
+}  // namespace
+
 double rates::diffLow(const caller& document, const cells& successes, const cells& attempts, double i, double j,
                       const Any& level, const Any& method, const Any& adjust, const Any& family) {
     return guarded([&] {
-        const auto o = interval_options(level, method, adjust, family);
-        const auto c = convert::counts_of(document, successes, attempts);
-        const auto [a, b] = pairwise::pair_at(c, i, j);
-        return finite(pairwise::difference_interval(c, a, b, o).low);
+        return finite(difference_bounds(document, successes, attempts, i, j, level, method, adjust, family).low);
     });
 }
 
 double rates::diffHigh(const caller& document, const cells& successes, const cells& attempts, double i, double j,
                        const Any& level, const Any& method, const Any& adjust, const Any& family) {
     return guarded([&] {
-        const auto o = interval_options(level, method, adjust, family);
-        const auto c = convert::counts_of(document, successes, attempts);
-        const auto [a, b] = pairwise::pair_at(c, i, j);
-        return finite(pairwise::difference_interval(c, a, b, o).high);
+        return finite(difference_bounds(document, successes, attempts, i, j, level, method, adjust, family).high);
     });
 }
 
