@@ -31,6 +31,10 @@ namespace {
 constexpr double cdf_tolerance = 1e-11;
 // The summed error estimate beyond which a CDF is a failure (Err:523).
 constexpr double max_cdf_error = 1e-11;
+// Steps of the two root searches before they are a failure (Err:523).
+constexpr int max_newton_steps = 60;
+constexpr std::uintmax_t max_bracket_steps = 100;
+constexpr const char* not_converged = "A credible bound's root search did not converge.";
 // Depth 8 (256 pieces a side): a smooth integrand converges in a few; past
 // that the estimate only chases rounding noise.
 constexpr unsigned quad_depth = 8;
@@ -114,7 +118,7 @@ double difference_quantile_newton(const beta_law& x, const beta_law& y, double q
     const std::pair<double, double> w{tail_point(y, 1e-16, false), tail_point(y, 1e-16, true)};
     double lo = -1.0, hi = 1.0;
     double d = std::clamp(mean(x) - mean(y) + spread * boost::math::quantile(boost::math::normal(), q), -1.0, 1.0);
-    for (int step = 0; step < 60; ++step) {
+    for (int step = 0; step < max_newton_steps; ++step) {
         const auto [cdf, density] = difference_cdf_density(x, y, d, w, spread);
         const double g = cdf - q;
         (g < 0 ? lo : hi) = d;
@@ -125,7 +129,7 @@ double difference_quantile_newton(const beta_law& x, const beta_law& y, double q
         if (std::fabs(next - d) < 3e-7 * std::min(1.0, spread / 0.01) || hi - lo < 1e-12) return next;
         d = next;
     }
-    throw no_convergence("A credible bound's root search did not converge.");
+    throw no_convergence(not_converged);
 }
 
 double difference_quantile(const beta_law& x, const beta_law& y, double q) {
@@ -150,11 +154,11 @@ double difference_quantile(const beta_law& x, const beta_law& y, double q) {
         std::swap(a, b);
         std::swap(fa, fb);
     }
-    std::uintmax_t iterations = 100;
+    std::uintmax_t iterations = max_bracket_steps;
     // An absolute tolerance: a bound near 0 needs no relative digits.
     const auto r = boost::math::tools::toms748_solve(
         f, a, b, fa, fb, [](double u, double v) { return std::fabs(u - v) < 1e-12; }, iterations);
-    if (iterations >= 100) throw no_convergence("A credible bound's root search did not converge.");
+    if (iterations >= max_bracket_steps) throw no_convergence(not_converged);
     return (r.first + r.second) / 2;
 }
 

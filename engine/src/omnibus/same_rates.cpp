@@ -82,11 +82,12 @@ result chi_square(result& r, route used, std::string why) {
 result exact_as_asked(result r, const table& t, const options& opt) {
     r.used = route::exact;
     r.has_exact = true;
-    r.exact = exact_p(t, r.order, opt.caps.exact_work, opt.caps.max_buckets, 1e-9, exact_threads());
+    r.exact = exact_p(t, r.order, opt.caps.exact_work, opt.caps.max_buckets, exact_merge_width, exact_threads());
     if (!r.exact.complete) {
         exact_outcome coarse;  // pointless when the table is too large to start at all
         if (!r.exact.too_large)
-            coarse = exact_p(t, r.order, opt.caps.exact_work / 4, opt.caps.max_buckets, 1e-2, exact_threads());
+            coarse = exact_p(t, r.order, opt.caps.exact_work / coarse_work_share, opt.caps.max_buckets,
+                             coarse_merge_width, exact_threads());
         std::string bounds;
         if (coarse.complete)
             bounds = "; the exact p-value lies between " + format_short(coarse.p_low) + " and " +
@@ -119,7 +120,8 @@ result automatic(result r, const table& t, const options& opt) {
                           "Every expected count is at least " + format_number(min_expected_count) + ", the smallest " +
                               format_short(r.expected.smallest) + ", so the chi-square approximation is used.");
     r.has_exact = true;
-    r.exact = exact_p(t, ordering::pearson, opt.caps.auto_exact_work, opt.caps.auto_max_buckets, 1e-9, exact_threads());
+    r.exact = exact_p(t, ordering::pearson, opt.caps.auto_exact_work, opt.caps.auto_max_buckets, exact_merge_width,
+                      exact_threads());
     if (r.exact.complete) {
         r.used = route::exact;
         r.p = r.exact.p;

@@ -18,6 +18,10 @@ namespace tallyrates::pairwise {
 
 namespace {
 
+// Halvings of the score interval's bisection before it is a failure (Err:523);
+// 52 reach double precision.
+constexpr std::uintmax_t max_bisection_steps = 200;
+
 struct rates_of_two {
     double x1, n1, x2, n2;
     double p1() const { return x1 / n1; }
@@ -87,10 +91,12 @@ double score_root(const rates_of_two& r, double from, double to, double target) 
     if ((f_from > 0) == (f_to > 0)) return std::fabs(f_from) < std::fabs(f_to) ? from : to;
     // Bisection: the statistic is infinite at delta = -1 and 1, which
     // interpolating methods cannot use; 52 halvings reach double precision.
-    std::uintmax_t iterations = 200;
+    std::uintmax_t iterations = max_bisection_steps;
     const auto bracket = boost::math::tools::bisect(f, from, to, boost::math::tools::eps_tolerance<double>(52),
                                                     iterations);
-    if (iterations >= 200) throw no_convergence("The score interval's root search did not converge.");
+    if (iterations >= max_bisection_steps)
+        throw no_convergence("The score interval's root search did not converge in " +
+                             std::to_string(max_bisection_steps) + " steps.");
     return (bracket.first + bracket.second) / 2;
 }
 

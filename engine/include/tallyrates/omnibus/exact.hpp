@@ -28,5 +28,10 @@ struct exact_outcome {
 // refusal) is the same bit for bit whatever their number.
 exact_outcome exact_p(const table& t, ordering o, std::uint64_t work_cap, std::size_t max_buckets,
                       double merge_width = 1e-9, unsigned threads = 2);
+// The merge width of the exact answer (far below the tie tolerance, so every
+// tie is resolved as in a plain enumeration), and of the coarse pass that
+// gives certified bounds beside a refusal, with its share of the work cap.
+inline constexpr double exact_merge_width = 1e-9, coarse_merge_width = 1e-2;
+inline constexpr std::uint64_t coarse_work_share = 4;  // a quarter of the cap
 
 }  // namespace tallyrates::omnibus
