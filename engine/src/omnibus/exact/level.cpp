@@ -32,11 +32,13 @@ std::vector<std::size_t> cut(const std::vector<double>& cost, std::size_t parts)
 
 // The next group's law at every live node of the pass's level, and the
 // suffix sums of each node's weights.
-source_laws network::build_laws(const pass& p) const {
+void network::build_laws(const pass& p, source_laws& s) const {
     const std::size_t k = p.k, g = p.plan.groups[k];
     const level& cur = p.cur;
-    source_laws s;
     s.of_node.assign(cur.nodes(), law{});
+    s.live.clear();
+    s.values.clear();
+    s.work = 0;
     s.suffix.resize(cur.total() + cur.nodes());
     std::vector<double> pmf;
     for (std::size_t i = 0; i < cur.nodes(); ++i) {
@@ -53,7 +55,6 @@ source_laws network::build_laws(const pass& p) const {
         s.values.insert(s.values.end(), pmf.begin(), pmf.end());
         s.work += pmf.size() + n;
     }
-    return s;
 }
 
 // Node d of the pass's next level into `out`; returns the mass that
@@ -185,7 +186,8 @@ bool network::step(pass& p, std::size_t other) {
     // shared rate the front pass often prunes everything before the back
     // pass starts (its bounds are charged in the set-up work all the same).
     if (p.k == 0) p.bound = reach_of(p.plan, t_, terms_, {0.0}, {0.0});
-    const source_laws from = build_laws(p);
+    build_laws(p, sources_);
+    const source_laws& from = sources_;
     out_.work += from.work;
     if (over_cap()) return false;
     const std::size_t held = other + p.cur.total() + (from.values.size() + from.suffix.size()) / 3 + reach_held_;
