@@ -1,4 +1,4 @@
-// Benchmarks of the Bayesian family (issue 8 targets: AHEAD under 50 us for
+// Benchmarks of the Bayesian family (targets in the README: AHEAD under 50 us for
 // n <= 10^4 and under 1 ms at n = 10^6; BEST and LOSS for 12 groups under
 // 10 ms; ORDER for 12 groups under 20 ms). Figures go into the README;
 // nothing here passes or fails.
@@ -124,7 +124,7 @@ BENCHMARK(BM_credible_hpd)->Unit(benchmark::kMicrosecond);
 BENCHMARK(BM_difference_bounds)->Arg(300)->Arg(10000)->Unit(benchmark::kMillisecond);
 BENCHMARK(BM_next_1000)->Unit(benchmark::kMicrosecond);
 
-// Side by side (issue 8): our P(best) for six groups against the common Monte
+// Side by side: our P(best) for six groups against the common Monte
 // Carlo estimate, 100,000 draws per group, written here only for the
 // comparison (std::gamma_distribution: a Beta draw is G_a / (G_a + G_b)).
 // Both report their error against 50-digit mpmath: tests/reference/omnibus.csv,

@@ -1,5 +1,5 @@
 // The exact route on 2 x 12 tables, equal and unequal group sizes, near and
-// far from one shared rate, in all three orderings (issue 10). Each case runs
+// far from one shared rate, in all three orderings. Each case runs
 // once in its own child process, so the peak memory printed (maximum resident
 // set size, from wait4; in brackets) is that run's alone, the program's own ~4 MB
 // included. Three lines per table and ordering:

@@ -1,4 +1,4 @@
-// Hostile inputs for the omnibus routes (issue 11): large but plausible
+// Hostile inputs for the omnibus routes: large but plausible
 // tallies that a colleague may type. Each case runs once in its own child
 // process, so the peak memory printed (maximum resident set size, from
 // wait4) is that call's alone, the program's own ~4 MB included. Figures go

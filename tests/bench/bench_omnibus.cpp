@@ -1,4 +1,4 @@
-// Benchmarks of the omnibus routes (issue targets: exact 2 x 12 under 10 ms at
+// Benchmarks of the omnibus routes (targets in the README: exact 2 x 12 under 10 ms at
 // N <= 150 and under 1 s at N <= 500 for each ordering; Monte Carlo at most
 // 1 us per table at N = 5,000; the automatic route never above 250 ms).
 // Figures go into the README; nothing here passes or fails.
@@ -47,7 +47,7 @@ BENCHMARK(BM_exact_lr)->Arg(60)->Arg(150)->Arg(240)->Arg(500)->Unit(benchmark::k
 BENCHMARK(BM_exact_prob)->Arg(60)->Arg(150)->Arg(240)->Arg(500)->Unit(benchmark::kMillisecond);
 
 // The same near table between and beyond those sizes, each ordering (0 X^2,
-// 1 G^2, 2 probability): issue 10 asks for no slowdown at any N up to 1,000,
+// 1 G^2, 2 probability): the README asks for no slowdown at any N up to 1,000,
 // and the network changes its plan with N (when its back pass starts).
 void BM_exact_near_sweep(benchmark::State& s) {
     run_exact(s, twelve_groups(s.range(0)), static_cast<ordering>(s.range(1)));

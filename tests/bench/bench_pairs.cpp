@@ -1,4 +1,4 @@
-// Benchmarks of the pairs family (issue 7 targets: all 66 pairs of 12 groups,
+// Benchmarks of the pairs family (targets in the README: all 66 pairs of 12 groups,
 // every method, under 2 ms in the engine; any single-cell call under 50 us).
 // Figures go into the README; nothing here passes or fails.
 #include <benchmark/benchmark.h>

@@ -1,4 +1,4 @@
-// Benchmarks of the planning family (issue 9 targets: every call under 1 ms
+// Benchmarks of the planning family (targets in the README: every call under 1 ms
 // in the engine except AHEAD, under 20 ms for established groups of up to
 // 10^6 attempts). Figures go into the README; nothing here passes or fails.
 #include <benchmark/benchmark.h>
@@ -53,7 +53,7 @@ BENCHMARK(BM_plan_ahead)
     ->Args({300, 1})->Args({10000, 1})->Args({1000000, 1})
     ->Unit(benchmark::kMillisecond);
 
-// Refusals: an unreachable target must be quick (issue 9: no call over 250 ms).
+// Refusals: an unreachable target must be quick (no call over 250 ms).
 void BM_refusals(benchmark::State& state) {
     for (auto _ : state) {
         try {

@@ -123,7 +123,7 @@ class Posterior(SheetCase):
                      "=RATES.POST.DIFF.LOW(%s;1;1)" % r):
             self.formula("D1", text)
             self.assertEqual(self.shown("D1"), "Err:502", text)
-        # No cap below the count cap any more (issue 18): 14 of 14 with the flat
+        # No cap below the count cap any more: 14 of 14 with the flat
         # prior is Beta(15, 1), and P(the next m all pass) = B(15 + m, 1) / B(15, 1)
         # = 15 / (15 + m) (beta-binomial closed form, Gelman et al. 2013, 2.4).
         self.formula("D2", "=RATES.POST.NEXT(%s;1;1E+9)" % r)

@@ -1,5 +1,5 @@
 #!/usr/bin/python3
-"""The defects of issue 18 through a real LibreOffice: every row of
+"""The defects once found by the sweeps, through a real LibreOffice: every row of
 tests/reference/defects.csv (exact fractions, 50-digit mpmath, the rate-axis
 quadrature of sweep.py; each row names its source) typed into a cell, and
 the process still alive and answering after the formulas that used to hang

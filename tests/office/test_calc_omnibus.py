@@ -96,7 +96,7 @@ class ReferenceValues(SheetCase):
                          "problem: Position 3 of the range, Pilot oven: successes (13) exceed attempts (12).")
 
     def test_huge_scores_give_the_scale_free_answer(self):
-        # Scores of 1e306 once overflowed the sums of squares (issue 18): z
+        # Scores of 1e306 once overflowed the sums of squares: z
         # does not depend on the scale of the scores, and with two groups the
         # binomial-variance trend statistic z^2 is Pearson's X^2 (common
         # practice, no source): 300 of 1,000 against 700 of 1,000 give
@@ -164,7 +164,7 @@ class Routes(SheetCase):
         # alone would pass half its cap, so "exact" asked by name gives
         # Err:523 at once and the report says why (the certified bounds of a
         # coarse pass, when one fits, are checked in tests/engine/test_cache.cpp).
-        # Since issue 10 a 2 x 12 table of 3,000 attempts no longer serves:
+        # Since the k-way merge network a 2 x 12 table of 3,000 attempts no longer serves:
         # it is answered, in 2.8 s.
         r = self.put_counts([3, 40000, 41000, 39000], [5, 80000, 80000, 80000])
         self.formula("G1", '=RATES.SAME.P(%s;"exact")' % r)

@@ -1,5 +1,5 @@
 #!/usr/bin/python3
-"""Regression rows for the defects of issue 18, each answer from outside the
+"""Regression rows for the defects the property sweeps found, each answer from outside the
 engine: exact fractions, 50-digit mpmath sums and root searches, and the
 rate-axis quadrature of sweep.py (scipy.stats.beta). A row whose expected
 cell is an error code says which error a user must see.

@@ -8,7 +8,7 @@ tests/engine/test_sweep.cpp feeds every row to the engine. Run with Debian's
 
     /usr/bin/python3 tests/reference/sweep.py > tests/reference/sweep.csv
 
-The space (issue 18): 2 to 30 groups (the Bayesian references 2 to 12, the
+The space: 2 to 30 groups (the Bayesian references 2 to 12, the
 invariants of test_sweep.cpp up to 30); 1 to 10^7 attempts per group, mixed
 within one tally (log-uniform); rates anywhere, near 0 and 1, x = 0 and x = n;
 priors 0.05 to 100 besides the flat and Jeffreys' ones; levels 0.5 to 0.9999;
@@ -436,7 +436,7 @@ def planning_rows(w):
                 "mpmath %s (50 digits), Fleiss, Levin & Paik (2003) formula" % mpmath.__version__)
 
 
-# ---- gaps a mutation check of the tests found (issue 18, item 4) ----
+# ---- gaps a mutation check of the tests found (the checklist asks for one per new function) ----
 
 SIMULTANEOUS = ("bonferroni", "sidak")
 

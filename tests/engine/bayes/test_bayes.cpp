@@ -2,7 +2,7 @@
 // 50-digit mpmath rows of tests/reference/bayes.csv (bayes.py: the
 // incomplete beta function by its continued fraction, bisection and findroot,
 // the beta-binomial sum; NEXT rows also agree with scipy stats.betabinom).
-// Accuracy asked by issue 8: absolute 1e-10, relative 1e-8 below 1e-3.
+// Accuracy promised: absolute 1e-10, relative 1e-8 below 1e-3.
 #include <gtest/gtest.h>
 
 #include <cmath>
@@ -160,7 +160,7 @@ TEST(Compare, ReferenceRows) {
 }
 
 TEST(Compare, IdentitiesHold) {
-    // Extra tests only (issue 8): AHEAD(i, j) + AHEAD(j, i) = 1, BEST sums to
+    // Extra tests only: AHEAD(i, j) + AHEAD(j, i) = 1, BEST sums to
     // 1, goal low mirrors goal high for swapped successes and failures.
     const std::vector<bayes::beta_law> laws{{287, 15}, {272, 20}, {234, 28}, {15, 1}};
     EXPECT_NEAR(bayes::ahead(laws[0], laws[3]) + bayes::ahead(laws[3], laws[0]), 1.0, 1e-12);

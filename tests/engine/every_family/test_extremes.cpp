@@ -1,4 +1,4 @@
-// Every planning and Bayesian function driven with extreme targets (issue 18):
+// Every planning and Bayesian function driven with extreme targets:
 // half-widths of 1e-12, rates 1e-12 from 0 or 1, confidence 1 - 1e-12,
 // priors of 1e-300 and 1e300, m = 10^12, groups of 10^12 attempts. Each call
 // must end with an answer inside its range or one of the engine's errors

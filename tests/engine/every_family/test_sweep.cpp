@@ -1,4 +1,4 @@
-// Property sweeps (issue 18): seeded random tallies from the whole space
+// Property sweeps: seeded random tallies from the whole space
 // users type into, against references computed outside the engine by
 // tests/reference/sweep.py (scipy's Cephes special functions, statsmodels,
 // 50-digit mpmath, a quantile-substitution quadrature written there; each
@@ -63,7 +63,7 @@ void expect_within(double got, double want, double absolute, double relative, co
         << r.name << " " << r.quantity << ": got " << got << ", reference " << want << " (" << r.source << ")";
 }
 
-// The engine's promise for a probability (issue 8): 1e-10 absolute, and 1e-8
+// The engine's promise for a probability: 1e-10 absolute, and 1e-8
 // relative below 1e-3; below about 1e-90, absolute only (its windows cut the
 // laws at 1e-100, bayes/across.hpp).
 void expect_probability(double got, double want, const sweep_row& r) {

@@ -60,7 +60,7 @@ inline std::vector<golden_table> golden_tables() {
 
 // 12 groups of 20, 25, 30, 35, 38, 40, 42, 45, 48, 52, 60 and 65 attempts
 // (N = 500), or those sizes scaled to N, with rates spread evenly from low
-// to high: issue 10's unequal tables (also in bench_exact).
+// to high: the unequal tables of bench_exact.
 inline golden_table unequal_twelve(const char* name, std::int64_t N, double low, double high) {
     const std::vector<std::int64_t> sizes = {20, 25, 30, 35, 38, 40, 42, 45, 48, 52, 60, 65};
     golden_table t{name, {}, {}};

@@ -52,9 +52,9 @@ TEST(Cache, SafeUnderConcurrentUse) {
 }
 
 TEST(ExactRefused, CarriesCertifiedBounds) {
-    // Issue 10's unequal 2 x 12 table (N = 500, rates 0.35 to 0.65): exact
-    // needs 7.8e7 work units, the coarse 1 % grid 8.8e6 (measured
-    // 2026-12-02); under a cap of 5e7 exact is refused and the coarse pass,
+    // The unequal 2 x 12 table of bench_exact (N = 500, rates 0.35 to 0.65):
+    // exact needs 7.8e7 work units, the coarse 1 % grid 8.8e6 (the work
+    // counts are deterministic); under a cap of 5e7 exact is refused and the coarse pass,
     // with a quarter of the cap, leaves certified bounds.
     const std::vector<std::int64_t> n{20, 25, 30, 35, 38, 40, 42, 45, 48, 52, 60, 65},
         x{7, 9, 12, 15, 17, 19, 22, 24, 27, 31, 37, 42};

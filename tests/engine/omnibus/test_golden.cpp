@@ -3,7 +3,7 @@
 // tests/golden/omnibus.txt.
 //
 // Exact-route lines (route=2) are compared at 1e-12 relative in p, low and
-// high since issue 10 changed the network's summation order; everything
+// high since the k-way merge network changed the summation order; everything
 // else bit for bit.
 //
 // This is not a check of correctness (test_omnibus.cpp compares with scipy,
@@ -34,7 +34,7 @@ std::vector<std::string> words(const std::string& line) {
 }
 
 // Lines of the exact route (route=2) may differ in the last bits of p, low
-// and high: the k-way merge network of issue 10 sums in another order than
+// and high: the k-way merge network sums in another order than
 // the network that wrote the file. Those three agree to 1e-12 relative (the
 // tolerance of the rational-arithmetic checks); every other field is equal.
 bool exact_route_close(const std::string& a, const std::string& b) {

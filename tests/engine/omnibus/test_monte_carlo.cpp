@@ -61,7 +61,7 @@ TEST(OmnibusMonteCarlo, BitIdenticalAcrossRunsAndThreadCounts) {
     EXPECT_EQ(a.extreme, c.extreme);
     EXPECT_EQ(a.extreme, d.extreme);
     // Golden output: pins the generator, the stream assignment and the sampler.
-    // Recorded from this engine on 2026-12-02; a change here changes users'
+    // Recorded from this engine; a change here changes users'
     // saved results and must be deliberate.
     EXPECT_EQ(a.extreme, 211);
     const auto other_seed = monte_carlo_p(t, ordering::pearson, 300000, 7, 1, 1u << 30);
@@ -130,8 +130,8 @@ TEST(OmnibusMonteCarlo, CapBoundaryIsTheSameForAnyThreadCount) {
     }
 }
 
-// The default caps, pinned by route choice on both sides of each (tables
-// probed on 2026-12-02; the work counts are deterministic).
+// The default caps, pinned by route choice on both sides of each (the work
+// counts are deterministic).
 
 TEST(OmnibusMonteCarlo, RefusesHostileDrawCounts) {
     options o;

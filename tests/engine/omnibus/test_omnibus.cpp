@@ -159,7 +159,7 @@ TEST(OmnibusExact, SameOutcomeBitForBitOnAnyThreadCount) {
     // Issue 10: levels and the join are cut into chunks by what they read,
     // never by the thread count, so p, its bounds, the work counted and
     // every refusal are the same with 1, 2 or 3 threads. Two 2 x 12 tables
-    // (issue 10's unequal sizes at N = 300, rates 0.35 to 0.65, whose later
+    // (bench_exact's unequal sizes at N = 300, rates 0.35 to 0.65, whose later
     // levels and join are cut in two; equal groups of 20, rates 0.10 to
     // 0.90), both grids, and caps that stop the enumeration part way by work
     // and by memory.
@@ -216,7 +216,7 @@ TEST(OmnibusExact, GivesUpOnHugeTablesWhenAskedByName) {
     options o;
     o.how = method::exact;
     EXPECT_THROW(same_rates(tally({3, 40000, 41000, 39000}, {5, 80000, 80000, 80000}), o), budget_exceeded);
-    // The refusal path stays quick (issue 10): 10,000 groups of 2 attempts
+    // The refusal path stays quick: 10,000 groups of 2 attempts
     // would hold 1.6 GB of bounds alone, and are refused before anything is
     // built or enumerated, with no coarse pass after (too_large).
     std::vector<std::int64_t> x(10000), n(10000, 2);
@@ -240,7 +240,7 @@ TEST(OmnibusAuto, RouteChoiceOnBothSidesOfEachCap) {
     // Exact work 3.3e7 (m = 70) and 5.3e7 (m = 80) against the cap of 4e7.
     EXPECT_EQ(same_rates(twelve(70), options{}).used, route::exact);
     EXPECT_EQ(same_rates(twelve(80), options{}).used, route::monte_carlo);
-    // The memory cap of "auto" (10^6 partial values): issue 10's unequal
+    // The memory cap of "auto" (10^6 partial values): bench_exact's unequal
     // table at N = 240 passes it after 6.7e6 of its 4e7 units and goes to
     // Monte Carlo.
     const auto unequal = tally({1, 2, 3, 5, 7, 8, 10, 12, 15, 17, 22, 26},
