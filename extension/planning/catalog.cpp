@@ -74,7 +74,13 @@ constexpr argument correction{
     "correction). TRUE or \"continuity\": sized for Fisher's exact test (RATES.PAIR.P with \"exact\"), more "
     "cautious, by the continuity correction of Fleiss, Tytun & Ury (1980); it adds attempts.",
     "FALSE (\"none\"), to match RATES.PAIR.P's default test"};
-constexpr std::array power_args{rate_1, rate_2, power, alpha, correction};
+constexpr argument ratio{
+    "ratio",
+    "Attempts of group 2 for each attempt of group 1, when the groups cannot be the same size: 10 for a running "
+    "line beside a pilot line with a tenth of its output, 0.5 when group 2 gets half as many. From 0.001 to "
+    "1000.",
+    planning::default_ratio};
+constexpr std::array power_args{rate_1, rate_2, power, alpha, correction, ratio};
 
 constexpr std::array ahead_args{
     shared::successes,
@@ -109,10 +115,11 @@ constexpr std::array table{
                  WHY_523_PLAN " (half_width 0).",
              width_args},
     function{"planPower", "RATES.PLAN.POWER",
-             "Attempts needed in each of two groups (lines, ovens, suppliers) for a real difference between "
-             "rate_1 and rate_2 to show up as significant (two-sided) with the chosen power. Fleiss, Levin & "
-             "Paik (2003): 0.10 against 0.15 needs 686 per group at the defaults, 726 with the continuity "
-             "correction." WHY_502_PLAN WHY_523_PLAN " (equal rates, or power 1).",
+             "Attempts needed in group 1 (group 2 then gets ratio times as many; equal groups by default) for a "
+             "real difference between rate_1 and rate_2 (lines, ovens, suppliers) to show up as significant "
+             "(two-sided) with the chosen power. Fleiss, Levin & Paik (2003): 0.10 against 0.15 needs 686 per "
+             "group at the defaults, 726 with the continuity correction." WHY_502_PLAN WHY_523_PLAN
+             " (equal rates, or power 1).",
              power_args},
     function{"planAhead", "RATES.PLAN.AHEAD",
              "Further attempts group i must complete, every one a success, before its rate is above group j's "

@@ -50,11 +50,12 @@ double rates::planWidth(const caller&, double rate, double half_width, const Any
 }
 
 double rates::planPower(const caller&, double rate_1, double rate_2, const Any& power, const Any& alpha,
-                        const Any& correction) {
+                        const Any& correction, const Any& ratio) {
     return guarded([&] {
         return attempts_of(planning::power(rate_1, rate_2, convert::number(power, "power").value_or(planning::default_power),
                                            convert::number(alpha, "alpha").value_or(planning::default_alpha),
-                                           correction_of(correction)));
+                                           correction_of(correction),
+                                           convert::number(ratio, "ratio").value_or(planning::default_ratio)));
     });
 }
 

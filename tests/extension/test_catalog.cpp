@@ -96,6 +96,7 @@ TEST(Catalog, EveryDefaultIsTheEngines) {
         {"power", planning::default_power},
         {"alpha", planning::default_alpha},
         {"failures", static_cast<double>(planning::default_failures)},
+        {"ratio", planning::default_ratio},
         {"points", static_cast<double>(bayes::default_curve_points)},
         {"prior_same", bayes::default_prior_same},
         {"prior_a", bayes::prior{}.a},
@@ -176,6 +177,9 @@ TEST(Catalog, QuotedCapsAreTheEngines) {
                                            std::to_string(bayes::max_curve_points)),
               std::string::npos);
     EXPECT_NE(text_of("sameP", 3).find(format_grouped(omnibus::limits{}.max_draws)), std::string::npos);
+    EXPECT_NE(text_of("planPower", 5).find("From " + format_number(planning::min_ratio) + " to " +
+                                           format_number(planning::max_ratio)),
+              std::string::npos);
     EXPECT_NE(text_of("postBest", 99).find("Up to " + std::to_string(bayes::max_groups_best) + " groups"),
               std::string::npos);
 }

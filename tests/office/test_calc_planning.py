@@ -28,6 +28,9 @@ def formula_of(row, r):
         return "=RATES.PLAN.MORE(%s;%s;%s;%s)" % (a[0], a[1], a[2], a[3])
     if row["what"] == "plan_width":
         return '=RATES.PLAN.WIDTH(%s;%s;%s;"%s")' % (a[0], a[1], a[2], METHOD_WORD[a[3]])
+    if row["what"] == "plan_power_ratio":
+        switch = {"none": "FALSE()", "continuity": '"continuity"'}[a[4]]
+        return "=RATES.PLAN.POWER(%s;%s;%s;%s;%s;%s)" % (a[0], a[1], a[2], a[3], switch, a[5])
     if row["what"] == "plan_power":
         # The correction both ways Calc passes it: TRUE/FALSE and the words.
         switch = {"none": "FALSE()", "continuity": '"continuity"'}[a[4]]
@@ -45,7 +48,7 @@ class Planning(SheetCase):
             self.assertEqual(self.value_of("H1"), row["value"],
                              "%s %s (%s)" % (text, row["quantity"], row["source"]))
             checked += 1
-        self.assertEqual(checked, 10 + 11 + 36 + 12 + 7)
+        self.assertEqual(checked, 10 + 11 + 36 + 12 + 12 + 7)
 
     def test_defaults_and_switches(self):
         # Published: Fleiss, Levin & Paik (2003), 686 per group; 726 with the
@@ -91,7 +94,9 @@ class Planning(SheetCase):
                      "=RATES.PLAN.AHEAD(%s;1;2;0.95;0)" % r,
                      # More failures than units, a fractional or negative record.
                      "=RATES.PLAN.MORE(0.99;0.95;10;11)", "=RATES.PLAN.MORE(0.99;0.95;10.5;0)",
-                     "=RATES.PLAN.MORE(0.99;0.95;-1;0)"):
+                     "=RATES.PLAN.MORE(0.99;0.95;-1;0)",
+                     # Group 2's size as a multiple of group 1's: above 0, at most 1000.
+                     "=RATES.PLAN.POWER(0.1;0.15;;;;0)", "=RATES.PLAN.POWER(0.1;0.15;;;;5000)"):
             self.formula("D1", text)
             self.assertEqual(self.shown("D1"), "Err:502", text)
         for text in ("=RATES.PLAN.DEMO(1;0.95)", "=RATES.PLAN.WIDTH(0.5;0)", "=RATES.PLAN.POWER(0.1;0.1)",

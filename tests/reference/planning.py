@@ -158,6 +158,40 @@ def power_rows(w):
                 STATSMODELS + " NormalIndPower.solve_power, effect |p1 - p2| / sqrt(pbar qbar) (pooled variance)")
 
 
+# Unequal groups: group 2 gets r times the attempts of group 1. Invented;
+# a pilot beside a running line of ten times its output, the reverse, and
+# r = 1, which must repeat the equal-groups rows.
+POWER_RATIO_CASES = [  # (rate_1, rate_2, power, alpha, r)
+    ("0.1", "0.15", "0.8", "0.05", "10"), ("0.9", "0.95", "0.9", "0.05", "0.5"), ("0.98", "0.995", "0.8", "0.05", "3"),
+    ("0.2", "0.05", "0.95", "0.1", "0.25"), ("0.5", "0.6", "0.8", "0.01", "2"), ("0.1", "0.15", "0.8", "0.05", "1"),
+]
+
+
+def power_ratio_rows(w):
+    """Fleiss, Levin & Paik (2003, 4.4) for n2 = r n1 and the continuity
+    correction of Fleiss, Tytun & Ury (1980) in that form, in 50-digit mpmath;
+    each n1 checked by the power of the test at (n1, r n1) and (n1 - 1, r (n1 - 1))."""
+    mpmath.mp.dps = 50
+    z = lambda q: mpmath.sqrt(2) * mpmath.erfinv(2 * q - 1)  # noqa: E731
+    phi = lambda x: (1 + mpmath.erf(x / mpmath.sqrt(2))) / 2  # noqa: E731
+    for a, b, pw, al, rr in POWER_RATIO_CASES:
+        p1, p2, power, alpha, r = (mpmath.mpf(v) for v in (a, b, pw, al, rr))
+        d, pbar = abs(p1 - p2), (p1 + r * p2) / (r + 1)
+        s0, s1 = mpmath.sqrt((r + 1) * pbar * (1 - pbar)), mpmath.sqrt(r * p1 * (1 - p1) + p2 * (1 - p2))
+        za, zb = z(1 - alpha / 2), z(power)
+        n0 = (za * s0 + zb * s1) ** 2 / (r * d ** 2)
+        nc = n0 / 4 * (1 + mpmath.sqrt(1 + 2 * (r + 1) / (r * n0 * d))) ** 2
+        for corr, n_real, c in (("none", n0, 0), ("continuity", nc, 1)):
+            n = max(1, int(mpmath.ceil(n_real)))
+            # sqrt(r m) (|d| - c (1/m + 1/(r m)) / 2) against the null spread.
+            power_at = lambda m: phi((mpmath.sqrt(r * m) * d - c * (r + 1) / (2 * mpmath.sqrt(r * m))  # noqa: E731
+                                      - za * s0) / s1)
+            assert power_at(n) >= power and (n == 1 or power_at(n - 1) < power), (a, b, rr, corr)
+            row(w, "power", [], [], "plan_power_ratio|%s|%s|%s|%s|%s|%s" % (a, b, pw, al, corr, rr), n,
+                "Fleiss, Levin & Paik (2003) unequal-groups formula / Fleiss, Tytun & Ury (1980) in mpmath " +
+                mpmath.__version__ + " (50 digits), power checked at n1 and n1 - 1 with n2 = r n1")
+
+
 AHEAD_PLAN_CASES = [  # (pilot successes, pilot attempts, other successes, other attempts, confidence, prior)
     (14, 14, 286, 300, "0.95", 1), (14, 14, 286, 300, "0.8", 1), (0, 0, 95, 100, "0.9", 1),
     (20, 21, 970, 1000, "0.95", 1), (30, 30, 990000, 1000000, "0.95", 1), (5, 5, 9, 10, "0.99", 1),
@@ -193,7 +227,7 @@ def ahead_plan_rows(w):
         row(w, "plan_ahead", [s1, s2], [n1, n2], "plan_ahead|%d|%d|%s" % (prior, prior, c), m, source)
 
 
-SECTIONS = ['demo_rows', 'more_rows', 'width_rows', 'power_rows', 'ahead_plan_rows']
+SECTIONS = ['demo_rows', 'more_rows', 'width_rows', 'power_rows', 'power_ratio_rows', 'ahead_plan_rows']
 
 
 if __name__ == "__main__":

@@ -223,44 +223,57 @@ namespace {
 
 struct power_terms {
     double difference;  // |p1 - p2|
-    double null_sd;     // sqrt(2 pbar qbar)
-    double sd;          // sqrt(p1 q1 + p2 q2)
+    double null_sd;     // sqrt((r + 1) pbar qbar)
+    double sd;          // sqrt(r p1 q1 + p2 q2)
     double z_alpha;     // two-sided
+    double ratio;       // r = n2 / n1
 };
 
-power_terms terms_of(double p1, double p2, double alpha) {
+power_terms terms_of(double p1, double p2, double alpha, double r) {
     arguments::rate(p1, "rate_1");
     arguments::rate(p2, "rate_2");
     arguments::level(alpha, "alpha");
+    if (!(r >= min_ratio && r <= max_ratio))
+        arguments::out_of_range("ratio", r,
+                                "lie from " + format_number(min_ratio) + " to " + format_number(max_ratio) +
+                                    ": the attempts of group 2 for each attempt of group 1");
     if (p1 == p2)
         throw unreachable_target("The two rates are equal: there is no difference to detect. Enter the rate you "
                                  "expect and the rate you want to be able to tell apart from it.");
-    const double pbar = (p1 + p2) / 2;
+    // Written so that r = 1 repeats the equal-groups arithmetic bit for bit.
+    const double pbar = (p1 + r * p2) / (r + 1);
     const boost::math::normal normal;
-    return {std::abs(p1 - p2), std::sqrt(2 * pbar * (1 - pbar)), std::sqrt(p1 * (1 - p1) + p2 * (1 - p2)),
-            boost::math::quantile(boost::math::complement(normal, alpha / 2))};
+    return {std::abs(p1 - p2), std::sqrt((r + 1) * pbar * (1 - pbar)),
+            std::sqrt(r * p1 * (1 - p1) + p2 * (1 - p2)),
+            boost::math::quantile(boost::math::complement(normal, alpha / 2)), r};
 }
 
 }  // namespace
 
-double power_at(double rate_1, double rate_2, double n, double alpha, correction how) {
-    const power_terms t = terms_of(rate_1, rate_2, alpha);
-    const double root = std::sqrt(n);
-    const double margin = root * t.difference - (how == correction::continuity ? 1 / root : 0) - t.z_alpha * t.null_sd;
+double power_at(double rate_1, double rate_2, double n, double alpha, correction how, double ratio) {
+    const power_terms t = terms_of(rate_1, rate_2, alpha, ratio);
+    // sqrt(r n) (|d| - c) with the continuity correction c = (1/n + 1/(r n)) / 2.
+    const double root = std::sqrt(t.ratio * n);
+    const double corrected =
+        how == correction::continuity ? (t.ratio + 1) / (2 * std::sqrt(t.ratio) * std::sqrt(n)) : 0;
+    const double margin = root * t.difference - corrected - t.z_alpha * t.null_sd;
     if (t.sd == 0) return margin > 0 ? 1.0 : 0.0;
     return boost::math::cdf(boost::math::normal(), margin / t.sd);
 }
 
-std::int64_t power(double rate_1, double rate_2, double power, double alpha, correction how) {
+std::int64_t power(double rate_1, double rate_2, double power, double alpha, correction how, double ratio) {
     if (power == 1)
         throw unreachable_target("No number of attempts gives a power of 1 (certainty): use 0.8, 0.9 or 0.95.");
     arguments::level(power, "power");
-    const power_terms t = terms_of(rate_1, rate_2, alpha);
+    const power_terms t = terms_of(rate_1, rate_2, alpha, ratio);
     const double z_power = boost::math::quantile(boost::math::normal(), power);
     const double k = t.z_alpha * t.null_sd + z_power * t.sd;
-    if (how == correction::none) return k <= 0 ? 1 : whole_at_least(k * k / (t.difference * t.difference));
-    // Fleiss, Tytun & Ury (1980): the root u = sqrt(n) of |d| u^2 - k u - 1 = 0.
-    const double u = (k + std::sqrt(k * k + 4 * t.difference)) / (2 * t.difference);
+    const double r = t.ratio;
+    if (how == correction::none) return k <= 0 ? 1 : whole_at_least(k * k / (r * (t.difference * t.difference)));
+    // Fleiss, Tytun & Ury (1980): the root u = sqrt(n) of
+    // sqrt(r) |d| u^2 - k u - (r + 1) / (2 sqrt(r)) = 0.
+    const double s = std::sqrt(r);
+    const double u = (k + std::sqrt(k * k + 2 * (r + 1) * t.difference)) / (2 * s * t.difference);
     return whole_at_least(u * u);
 }
 

@@ -77,6 +77,24 @@ TEST(Planning, ReferenceRows) {
             const auto n = planning::power(std::stod(f[1]), std::stod(f[2]), std::stod(f[3]), std::stod(f[4]), how);
             EXPECT_EQ(n, want) << r.quantity << " " << r.source;
             if (how == planning::correction::none) fleiss[f[1] + "|" + f[2]] = static_cast<double>(n);
+        } else if (what == "plan_power_ratio") {
+            const auto how = f[5] == "continuity" ? planning::correction::continuity : planning::correction::none;
+            const double ratio = std::stod(f[6]);
+            const auto n =
+                planning::power(std::stod(f[1]), std::stod(f[2]), std::stod(f[3]), std::stod(f[4]), how, ratio);
+            EXPECT_EQ(n, want) << r.quantity << " " << r.source;
+            // The power of the test at (n, ratio n) reaches the target, one attempt fewer does not.
+            const double target = std::stod(f[3]);
+            EXPECT_GE(planning::power_at(std::stod(f[1]), std::stod(f[2]), static_cast<double>(n), std::stod(f[4]),
+                                         how, ratio),
+                      target)
+                << r.quantity;
+            if (n > 1) {
+                EXPECT_LT(planning::power_at(std::stod(f[1]), std::stod(f[2]), static_cast<double>(n - 1),
+                                             std::stod(f[4]), how, ratio),
+                          target)
+                    << r.quantity;
+            }
         } else if (what == "plan_power_pooled") {
             // Comparison only (statsmodels NormalIndPower uses the pooled
             // variance under the alternative too): the Fleiss size must stay
@@ -98,6 +116,7 @@ TEST(Planning, ReferenceRows) {
     EXPECT_EQ(checked["plan_width"], 36);
     EXPECT_EQ(checked["plan_power"], 12);
     EXPECT_EQ(checked["plan_power_pooled"], 5);
+    EXPECT_EQ(checked["plan_power_ratio"], 12);
     EXPECT_EQ(checked["plan_ahead"], 7);
 }
 
@@ -157,6 +176,8 @@ TEST(Planning, BadArgumentsAreInvalidInput) {
     EXPECT_THROW(planning::power(0.1, 0.2, 0.8, 0.0, planning::correction::none), invalid_input);
     EXPECT_THROW(planning::power(0.1, 0.2, 1.2, 0.05, planning::correction::none), invalid_input);
     EXPECT_THROW(planning::correction_from_number(2), invalid_input);
+    EXPECT_THROW(planning::power(0.1, 0.2, 0.8, 0.05, planning::correction::none, 0.0), invalid_input);
+    EXPECT_THROW(planning::power(0.1, 0.2, 0.8, 0.05, planning::correction::none, 1e4), invalid_input);
     EXPECT_THROW(planning::more_units(0.99, 0.95, 10, 11), invalid_input);  // more failed than run
     EXPECT_THROW(planning::more_units(0.99, 0.95, -1, 0), invalid_input);
     EXPECT_THROW(planning::more_units(0.99, 0.0, 10, 0), invalid_input);

@@ -19,14 +19,17 @@
 //   rate n gives a narrower one) finds the first n where the target is
 //   possible, and n is then stepped up one at a time until the interval of
 //   the whole count meets it.
-// - power (RATES.PLAN.POWER): attempts per group to detect rate_1 against
-//   rate_2 with a two-sided test at level alpha: Fleiss, Levin & Paik (2003,
-//   Statistical Methods for Rates and Proportions, 3rd ed., section 4.2),
-//     n' = (z_{alpha/2} sqrt(2 pbar qbar) + z_power sqrt(p1 q1 + p2 q2))^2 / (p1 - p2)^2,
-//   and with the continuity correction of Fleiss, Tytun & Ury (1980,
-//   Biometrics 36:343), n = n'/4 (1 + sqrt(1 + 4 / (n' |p1 - p2|)))^2. Each
-//   inverts exactly the normal approximation to the power of the uncorrected
-//   or corrected test, so the smallest whole n is the ceiling.
+// - power (RATES.PLAN.POWER): attempts n of group 1, and r n of group 2, to
+//   detect rate_1 against rate_2 with a two-sided test at level alpha:
+//   Fleiss, Levin & Paik (2003, Statistical Methods for Rates and
+//   Proportions, 3rd ed., sections 4.2 and 4.4),
+//     n' = (z_{alpha/2} sqrt((r + 1) pbar qbar) + z_power sqrt(r p1 q1 + p2 q2))^2 / (r (p1 - p2)^2),
+//   pbar = (p1 + r p2) / (r + 1), and with the continuity correction of
+//   Fleiss, Tytun & Ury (1980, Biometrics 36:343),
+//   n = n'/4 (1 + sqrt(1 + 2 (r + 1) / (r n' |p1 - p2|)))^2. Each inverts
+//   exactly the normal approximation to the power of the uncorrected or
+//   corrected test, so the smallest whole n is the ceiling; r = 1 is the
+//   equal-groups formula.
 // - more (RATES.PLAN.MORE): the fewest further units m, all passing, after
 //   which a record of run + m units with `failed` failures demonstrates the
 //   rate as above: the demonstration size for f = failed, less the run so
@@ -73,14 +76,20 @@ inline constexpr correction default_correction = correction::none;
 inline constexpr std::int64_t default_failures = 0;
 // What a cell holding TRUE or FALSE passes (1 or 0); other numbers are refused.
 correction correction_from_number(double value);
-// RATES.PLAN.POWER: attempts per group. Rates in [0, 1] and different,
-// power and alpha in (0, 1) (power 1 is unreachable).
-std::int64_t power(double rate_1, double rate_2, double power, double alpha, correction how);
+// The size of group 2 as a multiple of group 1's (a running line beside a
+// pilot with a tenth of its output: 10); equal groups when none is given.
+inline constexpr double default_ratio = 1, min_ratio = 0.001, max_ratio = 1000;
+// RATES.PLAN.POWER: attempts of group 1 (group 2 gets ratio times as many).
+// Rates in [0, 1] and different, power and alpha in (0, 1) (power 1 is
+// unreachable), ratio in [min_ratio, max_ratio].
+std::int64_t power(double rate_1, double rate_2, double power, double alpha, correction how,
+                   double ratio = default_ratio);
 // The power and false-alarm risk used when none is given (the usual 80 % and
 // 5 %; common practice, no source).
 inline constexpr double default_power = 0.8, default_alpha = 0.05;
-// The power the formula gives at n per group (for tests and the docs).
-double power_at(double rate_1, double rate_2, double n, double alpha, correction how);
+// The power the formula gives at n attempts of group 1 and ratio n of group 2
+// (for tests and the docs).
+double power_at(double rate_1, double rate_2, double n, double alpha, correction how, double ratio = default_ratio);
 
 // RATES.PLAN.AHEAD: further successes of `pilot` until P(rate_pilot >
 // rate_other) >= confidence; 0 when it already is.
