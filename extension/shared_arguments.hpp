@@ -8,10 +8,16 @@
 
 // Ends every description of a function that can fail with Err:502.
 #define TALLYRATES_WHY_502 " If the cell shows Err:502, RATES.CHECK on the same ranges says why."
-// The same for functions that name groups by position (i, j).
+// The same for functions that name two groups by position (i, j) and take words.
 #define TALLYRATES_WHY_502_POSITIONS                                                                      \
     " If the cell shows Err:502, RATES.CHECK on the same ranges with the same i and j says why (a word that " \
     "is not one of those listed here is the other cause)."
+// Two groups by position, no words.
+#define TALLYRATES_WHY_502_PAIR " If the cell shows Err:502, RATES.CHECK on the same ranges with the same i and j says why."
+// One group by position (i), with words.
+#define TALLYRATES_WHY_502_ONE                                                                            \
+    " If the cell shows Err:502, RATES.CHECK on the same ranges with the same i says why (a word that is not " \
+    "one of those listed here is the other cause)."
 
 namespace tallyrates::catalog::shared {
 

@@ -18,10 +18,21 @@ using shared::prior_a;
 using shared::prior_b;
 using shared::successes;
 
-#define WHY_502_POST                                                                                        \
+// `also`: the function's other arguments and their rules.
+#define WHY_502_POST(also)                                                                                  \
     " If the cell shows Err:502: i must name a filled row of the range (a group with 0 attempts is fine: it "   \
-    "keeps the prior), priors must lie from 0.01 to 1000000 and words as listed; RATES.CHECK on the same ranges checks the " \
-    "counts."
+    "keeps the prior), priors must lie from 0.01 to 1000000" also "; RATES.CHECK on the same ranges checks "  \
+    "the counts."
+// The same for functions of two groups (i and j).
+#define WHY_502_POST_PAIR                                                                                   \
+    " If the cell shows Err:502: i and j must name two different filled rows of the range (a group with 0 "   \
+    "attempts is fine: it keeps the prior) and priors must lie from 0.01 to 1000000; RATES.CHECK on the same " \
+    "ranges checks the counts."
+// The same for functions of every group (no i): what else they take is
+// named where they are described.
+#define WHY_502_POST_ALL(also)                                                                              \
+    " If the cell shows Err:502: priors must lie from 0.01 to 1000000" also "; RATES.CHECK on the same ranges " \
+    "checks the counts."
 // Where the answer is an integral over the groups' laws (P(best), the loss,
 // P(ahead) when no finite sum applies).
 #define WHY_523_WORK                                                                                         \
@@ -67,77 +78,81 @@ constexpr std::array table_args{successes, attempts, credible_level, shared::goa
 constexpr std::array table{
     function{"postMean", "RATES.POST.MEAN",
              "Expected success rate of group i given its counts and the prior (a fraction; format as %). With the "
-             "default prior, (successes + 1) / (attempts + 2): 14 of 14 gives 93.8 %." WHY_502_POST,
+             "default prior, (successes + 1) / (attempts + 2): 14 of 14 gives 93.8 %." WHY_502_POST(""),
              mean_args},
     function{"postLow", "RATES.POST.LOW",
              "Lower end of the credible interval for the rate of group i: the rate lies above it with the chosen "
              "probability split (a fraction; format as %). A group with no attempts yet gives the prior's "
-             "interval." WHY_502_POST,
+             "interval." WHY_502_POST(", level strictly between 0 and 1 and kind one of the words listed"),
              bound_args},
     function{"postHigh", "RATES.POST.HIGH",
-             "Upper end of the credible interval for the rate of group i (a fraction; format as %)." WHY_502_POST,
+             "Upper end of the credible interval for the rate of group i (a fraction; format as %)."
+             WHY_502_POST(", level strictly between 0 and 1 and kind one of the words listed"),
              bound_args},
     function{"postAbove", "RATES.POST.ABOVE",
              "Probability that the rate of group i is above the target rate, given its counts: \"how sure are we "
              "that this lot meets 99 %\". With goal \"low\" (defect counts), the probability that it is below."
-             WHY_502_POST,
+             WHY_502_POST(", rate from 0 to 1 and goal one of the words listed"),
              above_args},
     function{"postNext", "RATES.POST.NEXT",
              "Probability that at least k of the next m attempts of group i succeed, given its counts so far "
-             "(k = m: all of them, e.g. the chance that the next 20 units all pass)." WHY_502_POST,
+             "(k = m: all of them, e.g. the chance that the next 20 units all pass)."
+             WHY_502_POST(", m and k whole numbers with k from 0 to m"),
              next_args},
     function{"postAhead", "RATES.POST.AHEAD",
              "Probability that the rate of group i is above the rate of group j, given both groups' counts: "
-             "\"the pilot line is better than line 2 with probability 0.93\". i and j must differ." WHY_502_POST
+             "\"the pilot line is better than line 2 with probability 0.93\". i and j must differ." WHY_502_POST_PAIR
              WHY_523_WORK,
              ahead_args},
     function{"postDiffLow", "RATES.POST.DIFF.LOW",
              "Lower end of the central credible interval for rate of group i minus rate of group j (a fraction; "
              "format as %): the difference lies below it with probability (1 - level) / 2, 2.5 % at the default "
              "level. Above 0: the rate of group i is the higher one with probability at least 97.5 % (at 0.95)."
-             WHY_502_POST,
+             WHY_502_POST_PAIR,
              diff_args},
     function{"postDiffHigh", "RATES.POST.DIFF.HIGH",
              "Upper end of the central credible interval for rate of group i minus rate of group j (a fraction; "
-             "format as %)." WHY_502_POST,
+             "format as %)." WHY_502_POST_PAIR,
              diff_args},
     function{"postOrder", "RATES.POST.ORDER",
              "Square array, one row and one column per filled row of the tally: the probability that the row "
              "group's rate is above the column group's. Enter as an array formula G rows by G columns for G "
              "groups; the diagonal stays blank. Up to 100 groups (40 with a prior that is not a whole number); more "
-             "give Err:523." WHY_502_POST,
+             "give Err:523." WHY_502_POST_ALL(""),
              order_args, true},
     function{"postBest", "RATES.POST.BEST",
              "Probability that group i has the best rate of all the groups (the highest; the lowest with goal "
              "\"low\" for defect counts). Over all groups these add up to 1. Up to 200 groups; more give Err:523."
-             WHY_502_POST WHY_523_WORK,
+             WHY_502_POST(" and goal one of the words listed") WHY_523_WORK,
              best_args},
     function{"postLoss", "RATES.POST.LOSS",
              "Expected shortfall of choosing group i: how much rate (a fraction; format as %) you expect to give "
              "up against the truly best group. Near 0: choosing i costs little even if it is not the best. Up to "
-             "200 groups; more give Err:523." WHY_502_POST WHY_523_WORK,
+             "200 groups; more give Err:523." WHY_502_POST(" and goal one of the words listed") WHY_523_WORK,
              best_args},
     function{"postSame", "RATES.POST.SAME",
              "Probability that every group shares one rate rather than each having its own, given the counts. "
              "It leans towards \"one rate\" when differences are small, more than a p-value does, and depends "
-             "on the prior: read it beside RATES.SAME.P." WHY_502_POST,
+             "on the prior: read it beside RATES.SAME.P." WHY_502_POST_ALL(" and prior_same strictly between 0 and 1"),
              same_args},
     function{"postCurve", "RATES.POST.CURVE",
              "Array for a chart of what each group's rate may be: a header row (the labels, for the chart's "
              "legend), then one row per rate from 0 to 1 with the posterior density of every filled row of the "
              "tally beside it (a column per group). Enter "
              "as an array formula points + 1 rows by G + 1 columns; chart it as lines (x: the first column)."
-             WHY_502_POST,
+             WHY_502_POST_ALL(", points a whole number from 2 to 10001"),
              curve_args, true},
     function{"postTable", "RATES.POST.TABLE",
              "Array with a header row, then one row per group: its name or position, expected rate, credible "
              "interval low and high (central), probability of being the best, and expected loss of choosing it. "
              "Enter as an array formula 6 columns wide and G + 1 rows high. Up to 30 groups; more give Err:523."
-             WHY_502_POST WHY_523_WORK,
+             WHY_502_POST_ALL(", level strictly between 0 and 1 and goal one of the words listed") WHY_523_WORK,
              table_args, true},
 };
 
 #undef WHY_502_POST
+#undef WHY_502_POST_PAIR
+#undef WHY_502_POST_ALL
 #undef WHY_523_WORK
 
 }  // namespace

@@ -66,7 +66,7 @@ constexpr std::array table{
     function{"diff", "RATES.DIFF",
              "Observed rate of group i minus rate of group j, as a fraction: format the cell as % to read it in "
              "percentage points (0.047 is 4.7 points), not as a relative change. i and j must differ."
-             TALLYRATES_WHY_502_POSITIONS,
+             TALLYRATES_WHY_502_PAIR,
              diff_args},
     function{"diffLow", "RATES.DIFF.LOW",
              "Lower end of the confidence interval for rate of group i minus rate of group j (a fraction; format "
@@ -88,11 +88,11 @@ constexpr std::array table{
              pairs_args, true},
     function{"oneLow", "RATES.ONE.LOW",
              "Lower end of the confidence interval for the success rate of group i (a fraction; format as %). "
-             "With 14 of 14 passing, 95 % Wilson gives 78.5 %: the run shows the rate is at least that." TALLYRATES_WHY_502_POSITIONS,
+             "With 14 of 14 passing, 95 % Wilson gives 78.5 %: the run shows the rate is at least that." TALLYRATES_WHY_502_ONE,
              one_args},
     function{"oneHigh", "RATES.ONE.HIGH",
              "Upper end of the confidence interval for the success rate of group i (a fraction; format as %). "
-             "With 0 defects in 40, a defect rate is below this with the chosen confidence." TALLYRATES_WHY_502_POSITIONS,
+             "With 0 defects in 40, a defect rate is below this with the chosen confidence." TALLYRATES_WHY_502_ONE,
              one_args},
 };
 

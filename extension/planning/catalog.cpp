@@ -24,7 +24,8 @@ constexpr argument demo_rate{
     ""};
 constexpr argument demo_confidence{
     "confidence",
-    "Confidence of the demonstration, between 0 and 1: at 0.95, a process whose true rate is below `rate` "
+    "Confidence of the demonstration, between 0 and 1: at 0.95, a process whose true rate is below the one to "
+    "demonstrate "
     "passes the test at most 5 times in 100.",
     ""};
 constexpr argument failures{
@@ -96,8 +97,8 @@ constexpr std::array ahead_args{
 
 constexpr std::array table{
     function{"planDemo", "RATES.PLAN.DEMO",
-             "Units to test in a demonstration test: if no more than `failures` of them fail, the rate is shown "
-             "to be at least `rate` with the chosen confidence. With no failure allowed (a zero-failure plan), "
+             "Units to test in a demonstration test: if no more of them fail than the failures allowed, the rate "
+             "is shown to be at least the one given, with the chosen confidence. With no failure allowed (a zero-failure plan), "
              "0.99 at 95 % confidence takes 299 units in a row." WHY_502_PLAN WHY_523_PLAN
              " (a rate of 1: 100 % can never be shown by testing).",
              demo_args},
@@ -123,7 +124,7 @@ constexpr std::array table{
              power_args},
     function{"planAhead", "RATES.PLAN.AHEAD",
              "Further attempts group i must complete, every one a success, before its rate is above group j's "
-             "with probability `confidence` (RATES.POST.AHEAD): how long a perfect pilot must keep going before "
+             "with probability at least confidence (RATES.POST.AHEAD): how long a perfect pilot must keep going before "
              "it is trusted over the established line. 0 when it already is; after a failure, enter it and read "
              "the new answer. Err:502: RATES.CHECK on the same ranges with the same i and j checks the counts "
              "and positions; confidence must lie strictly between 0 and 1, priors from 0.01 to 1000000." WHY_523_PLAN

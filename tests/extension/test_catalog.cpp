@@ -184,6 +184,34 @@ TEST(Catalog, QuotedCapsAreTheEngines) {
               std::string::npos);
 }
 
+// A wizard text names only arguments its function has, and no markup.
+TEST(Catalog, TextsNameOnlyTheirOwnArguments) {
+    for (const auto& f : catalog::functions()) {
+        std::set<std::string> names;
+        for (const auto& a : f.arguments) {
+            names.insert(std::string(a.name));
+            EXPECT_EQ(a.description.find('`'), std::string::npos) << f.display << " " << a.name;
+        }
+        const std::string text(f.description);
+        EXPECT_EQ(text.find('`'), std::string::npos) << f.display;
+        const auto why = text.find("Err:502");
+        if (why == std::string::npos) continue;
+        const std::string sentence = text.substr(why);
+        for (const char* name : {"i", "j"}) {
+            const bool named = sentence.find(std::string(" ") + name + " ") != std::string::npos ||
+                               sentence.find(std::string(" ") + name + ",") != std::string::npos;
+            if (named) {
+                EXPECT_TRUE(names.contains(name)) << f.display << " names " << name << ": " << sentence;
+            }
+        }
+        if (sentence.find("word") != std::string::npos) {
+            bool takes_words = false;
+            for (const auto& a : f.arguments) takes_words |= a.description.find('"') != std::string::npos;
+            EXPECT_TRUE(takes_words) << f.display << " speaks of words: " << sentence;
+        }
+    }
+}
+
 TEST(Catalog, EveryKeywordIsListedInTheDescriptions) {
     const auto* same = catalog::by_programmatic("sameP");
     for (const auto& w : keywords::omnibus_method)
