@@ -387,19 +387,20 @@ def width_reference(rate, half, lv, method):
     return int(ns[ok[0]]) if len(ok) else None
 
 
-def power_reference(p1, p2, power, alpha, corrected=False):
-    """Fleiss, Levin & Paik (2003): n' = (z_(alpha/2) sqrt(2 pbar qbar) + z_power
-    sqrt(p1 q1 + p2 q2))^2 / (p1 - p2)^2; corrected (Fleiss, Tytun & Ury 1980):
-    n = n'/4 (1 + sqrt(1 + 4 / (n' |p1 - p2|)))^2; the ceiling, 50 digits."""
+def power_reference(p1, p2, power, alpha, corrected=False, r=1):
+    """Fleiss, Levin & Paik (2003), group 2 with r times group 1's attempts:
+    n' = (z_(alpha/2) sqrt((r + 1) pbar qbar) + z_power sqrt(r p1 q1 + p2 q2))^2 / (r (p1 - p2)^2),
+    pbar = (p1 + r p2) / (r + 1); corrected (Fleiss, Tytun & Ury 1980):
+    n = n'/4 (1 + sqrt(1 + 2 (r + 1) / (r n' |p1 - p2|)))^2; the ceiling, 50 digits."""
     with mpmath.workdps(50):
-        p1, p2, power, alpha = (mpmath.mpf(v) for v in (p1, p2, power, alpha))
+        p1, p2, power, alpha, r = (mpmath.mpf(v) for v in (p1, p2, power, alpha, r))
         za = -mpmath.sqrt(2) * mpmath.erfinv(2 * (alpha / 2) - 1)
         zb = mpmath.sqrt(2) * mpmath.erfinv(2 * power - 1)
-        pbar = (p1 + p2) / 2
-        k = za * mpmath.sqrt(2 * pbar * (1 - pbar)) + zb * mpmath.sqrt(p1 * (1 - p1) + p2 * (1 - p2))
-        n = k * k / (p1 - p2) ** 2
+        pbar = (p1 + r * p2) / (r + 1)
+        k = za * mpmath.sqrt((r + 1) * pbar * (1 - pbar)) + zb * mpmath.sqrt(r * p1 * (1 - p1) + p2 * (1 - p2))
+        n = k * k / (r * (p1 - p2) ** 2)
         if corrected:
-            n = n / 4 * (1 + mpmath.sqrt(1 + 4 / (n * abs(p1 - p2)))) ** 2
+            n = n / 4 * (1 + mpmath.sqrt(1 + 2 * (r + 1) / (r * n * abs(p1 - p2)))) ** 2
         return int(mpmath.ceil(n - mpmath.mpf(10) ** -30))
 
 
@@ -561,13 +562,56 @@ def extra_planning_rows(w):
                 "ahead|%r|%r|%r" % (pa, pb, conf), m, QUAD + ": P at m - 1 below the confidence, at m above")
 
 
+def more_and_ratio_rows(w):
+    """RATES.PLAN.MORE: the smallest m with P(at most `failed` failures in run + m | rate) <= 1 - C,
+    searched directly on scipy's binomial CDF (not through the demonstration size), records of
+    1 to 10^7 units; RATES.PLAN.POWER with group 2 of r = 10^-2 .. 10^2 times group 1."""
+    for case in range(80):
+        rate = float(round(1 - 10 ** RNG.uniform(-4, -0.3), 6))
+        conf = level()
+        run = int(RNG.choice([0, 1, int(10 ** RNG.uniform(0, 7))]))
+        failed = min(run, int(RNG.choice([0, 0, 1, 2, 5, 20])))
+        tail = lambda m: scipy.stats.binom.cdf(failed, run + m, 1 - rate)  # noqa: E731
+        if tail(0) <= 1 - conf:
+            m = 0
+        else:
+            lo, hi = 0, 1
+            while tail(hi) > 1 - conf:
+                lo, hi = hi, hi * 2
+            while hi - lo > 1:
+                mid = (lo + hi) // 2
+                lo, hi = (lo, mid) if tail(mid) <= 1 - conf else (mid, hi)
+            m = hi
+        # Leave out targets within rounding of the boundary, and beyond the planning cap.
+        near = [abs(tail(k) - (1 - conf)) <= 1e-9 * (1 - conf) for k in {m, max(m - 1, 0)}]
+        if any(near) or run + m > 10 ** 9:
+            continue
+        out(w, "planning", "sweep_more_%d" % case, [], [], "more|%r|%r|%d|%d" % (rate, conf, run, failed), m,
+            SCIPY + " stats.binom.cdf, smallest m by doubling and bisection on the whole record")
+    for case in range(60):
+        p1 = float(round(RNG.uniform(0.001, 0.999), 4))
+        p2 = float(round(min(0.9999, max(0.0001, p1 + RNG.choice([-1, 1]) * 10 ** RNG.uniform(-2.5, -0.3))), 4))
+        if p1 == p2:
+            continue
+        r = float(round(10 ** RNG.uniform(-2, 2), 3))
+        power, alpha = float(RNG.choice([0.5, 0.8, 0.9, 0.95])), float(RNG.choice([0.01, 0.05, 0.1]))
+        corrected = case % 2 == 1
+        n = power_reference(p1, p2, power, alpha, corrected, r)
+        if n <= 10 ** 9:
+            out(w, "planning", "sweep_power_ratio_%d" % case, [], [],
+                "%s|%r|%r|%r|%r|%r" % ("power_ratio_cc" if corrected else "power_ratio", p1, p2, power, alpha, r), n,
+                "mpmath %s (50 digits), Fleiss, Levin & Paik (2003) unequal groups%s" %
+                (mpmath.__version__, ", Fleiss, Tytun & Ury (1980) correction" if corrected else ""))
+
+
 def main():
     # Laws far apart underflow to 0 in scipy's Boost calls: the warning is noise.
     np.seterr(all="ignore")
     warnings.filterwarnings("ignore", category=RuntimeWarning)
     w = csv.writer(sys.stdout, lineterminator="\n")
     w.writerow(["family", "case", "successes", "attempts", "quantity", "value", "source"])
-    for section in (bayes_rows, pairs_rows, omnibus_rows, planning_rows, family_rows, hpd_rows, extra_planning_rows):
+    for section in (bayes_rows, pairs_rows, omnibus_rows, planning_rows, family_rows, hpd_rows, extra_planning_rows,
+                    more_and_ratio_rows):
         section(w)
 
 

@@ -245,6 +245,12 @@ TEST(Sweep, PlanningAgainstDirectSearch) {
         else if (what == "power" || what == "power_cc")
             got = planning::power(std::stod(f[1]), std::stod(f[2]), std::stod(f[3]), std::stod(f[4]),
                                   what == "power" ? planning::correction::none : planning::correction::continuity);
+        else if (what == "more")
+            got = planning::more_units(std::stod(f[1]), std::stod(f[2]), std::stoll(f[3]), std::stoll(f[4]));
+        else if (what == "power_ratio" || what == "power_ratio_cc")
+            got = planning::power(std::stod(f[1]), std::stod(f[2]), std::stod(f[3]), std::stod(f[4]),
+                                  what == "power_ratio" ? planning::correction::none : planning::correction::continuity,
+                                  std::stod(f[5]));
         else if (what == "ahead") {
             // Pilot at position 1, the running line at 2, a prior that need not be whole.
             const auto c = counts::from_values(r.x, r.n);
@@ -257,7 +263,10 @@ TEST(Sweep, PlanningAgainstDirectSearch) {
     }
     std::cout << "planning sweep: " << rows.size() << " targets (demo " << checked["demo"] << ", width "
               << checked["width"] << ", power " << checked["power"] << ", corrected power " << checked["power_cc"]
-              << ", pilot runs " << checked["ahead"] << ")\n";
+              << ", pilot runs " << checked["ahead"] << ", further units " << checked["more"]
+              << ", unequal groups " << checked["power_ratio"] + checked["power_ratio_cc"] << ")\n";
+    EXPECT_GE(checked["more"], 60);
+    EXPECT_GE(checked["power_ratio"] + checked["power_ratio_cc"], 50);
     EXPECT_GE(checked["power_cc"], 50);
     EXPECT_GE(checked["ahead"], 5);
     EXPECT_GE(rows.size(), 250u);
