@@ -49,14 +49,22 @@ inline constexpr argument prior_b{"prior_b", "What you believed before these cou
                                   bayes::prior{}.b};
 inline constexpr argument goal{
     "goal",
-    "\"high\" when successes are good (units within specification), \"low\" when the counts are defects, so that "
-    "a lower rate is the better one.",
+    "\"high\" when the counts are good units (within specification, passes), \"low\" when they are defects, so "
+    "that the lower rate is the better one.",
     "\"high\""};
 inline constexpr argument one_rate_method{
     "method",
-    "Leave empty or \"wilson\" (recommended). \"exact\" (Clopper-Pearson: never too narrow, often wider than "
-    "needed; the usual choice for demonstrating reliability), \"jeffreys\", or \"agresti-coull\".",
+    "Leave empty or \"wilson\" (recommended). \"clopper-pearson\" (never too narrow, often wider than needed; "
+    "the usual choice for demonstrating reliability, and the one RATES.PLAN.DEMO plans for), \"jeffreys\" (its "
+    "lower bound is 0 when no unit passed and its upper bound 1 when all did, as Brown, Cai and DasGupta 2001 "
+    "advise), or \"agresti-coull\".",
     "\"wilson\""};
+inline constexpr argument sides{
+    "sides",
+    "Leave empty or \"two\": the bound is one end of an interval that holds with probability level (a chance of "
+    "(1 - level)/2 on each side). \"one\": the bound alone holds with probability level, the claim of a "
+    "demonstration (\"at least 95 % with 95 % confidence\"); level must then be at least 0.5.",
+    "\"two\""};
 inline constexpr argument labels{
     "labels",
     "Cells with the group names (oven, line, lot), the same size as the count ranges; messages then name the "

@@ -37,13 +37,15 @@ RESULTS = [
     ("Likelihood ratio G²", '=RATES.SAME.STAT(%s;"lr")' % COUNTS, "0.000"),
     ("Trend with belt speed, air ovens: p-value", "=RATES.TREND.P(%s)" % AIR, "0.0000"),
     ("Trend z, below 0: falls as belt speeds up", "=RATES.TREND.Z(%s)" % AIR, "0.00"),
-    ("Pilot minus oven A, pass rate", "=RATES.DIFF(%s;4;1)" % COUNTS, "+0.0%;-0.0%"),
+    ("Oven A minus pilot, pass rate (first minus second, as in the pairs table)", "=RATES.DIFF(%s;1;4)" % COUNTS,
+     "+0.0%;-0.0%"),
     ("P(pilot's rate above oven A's), Bayesian", "=RATES.POST.AHEAD(%s;4;1)" % COUNTS, "0.00"),
 ]
 
 
-# Which ovens differ: every pair, 95 % Newcombe intervals, p adjusted by Holm
-# over all pairs. Seven rows of counts make 21 pairs: 22 rows with the header.
+# Which ovens differ: every pair, 95 % Miettinen-Nurminen intervals holding
+# for all pairs together, p adjusted by Bonferroni, and the verdict. Seven
+# rows of counts make 21 pairs: 22 rows with the header.
 PAIRS_TOP, PAIRS_ROWS = 41, 22
 
 # How many more runs: below the pairs. G68 is an input (the improvement worth
@@ -51,7 +53,7 @@ PAIRS_TOP, PAIRS_ROWS = 41, 22
 PLAN_TOP = 64
 BEST_AIR = "MATCH(MAX($D$5:$D$7);$D$5:$D$7;0)"
 PLAN = [  # label, formula, number format
-    ("Zero-failure demonstration of the plant target (B3) at 95 % confidence: boards in a row",
+    ("Zero-failure demonstration of the plant target at 95 % confidence: boards in a row",
      "=RATES.PLAN.DEMO($B$3;0.95)", "0"),
     ("The same demonstration allowing 1 failing board", "=RATES.PLAN.DEMO($B$3;0.95;1)", "0"),
     ("Further boards, all passing, before the pilot is ahead of the best air oven with probability 0.95",
@@ -64,6 +66,8 @@ PLAN = [  # label, formula, number format
      "=RATES.PLAN.WIDTH(INDEX($D$5:$D$7;%s);0.01)" % BEST_AIR, "0"),
     ("Further pilot boards, all passing, before the pilot's own record shows the plant target at 95 % confidence",
      "=RATES.PLAN.MORE($B$3;0.95;C8;C8-B8)", "0"),
+    ("The pilot's record as a demonstration judges it: one-sided 95 % lower confidence bound (Clopper-Pearson)",
+     '=RATES.ONE.LOW(%s;4;0.95;"clopper-pearson";"one")' % COUNTS, "0.0%"),
 ]
 
 
@@ -139,8 +143,9 @@ def add_curves_sheet(doc):
     at = cell("A4").Position
     rect = Rectangle(at.X, at.Y, 24000, 8000)
     # Below the chart: the posterior table, one row per oven.
-    cell("A25").setString("Posterior table (array formula): expected pass rate, 95 % credible interval, chance of "
-                          "being the best oven, expected shortfall of choosing it")
+    cell("A25").setString("Posterior table (array formula): expected pass rate, 95 % credible interval (Bayesian: "
+                          "the rate lies inside with probability 95 %), chance of being the best oven, expected "
+                          "shortfall of choosing it")
     cell("A25").CharWeight = 150
     cell("A26:F30").setArrayFormula("RATES.POST.TABLE($'Oven trial'.B5:B8;$'Oven trial'.C5:C8;;;;;$'Oven trial'.A5:A8)")
     cell("B27:D30").NumberFormat = number_format(doc, "0.0%")
@@ -191,8 +196,8 @@ def main():
         cell("B3").NumberFormat = percent
         # Per oven, beside its counts, blank until counts are typed ({i}: its position).
         for col, text, fn, fmt in (
-                ("F", "95 % low", "RATES.ONE.LOW(%s;{i})" % COUNTS, percent),
-                ("G", "95 % high", "RATES.ONE.HIGH(%s;{i})" % COUNTS, percent),
+                ("F", "95 % confidence low (Wilson)", "RATES.ONE.LOW(%s;{i})" % COUNTS, percent),
+                ("G", "95 % confidence high", "RATES.ONE.HIGH(%s;{i})" % COUNTS, percent),
                 ("K", "P(pass rate above target)", "RATES.POST.ABOVE(%s;{i};$B$3)" % COUNTS, "0.00"),
                 ("L", "P(best oven)", "RATES.POST.BEST(%s;{i})" % COUNTS, "0.00"),
                 ("M", "P(pilot ahead of this oven)", "IF({i}=4;\"\";RATES.POST.AHEAD(%s;4;{i}))" % COUNTS, "0.00")):
@@ -227,16 +232,17 @@ def main():
         cell("A26:A36").IsTextWrapped = True  # labels that name an oven are long
         cell("A38").setString("Caution: a small p-value says the ovens' rates differ beyond chance; it is not "
                               "engineering acceptance. Follow the standards that apply and have decisions reviewed.")
-        cell("A40").setString("Which ovens differ? Every pair: difference of pass rates with its 95 % interval "
-                              "(Newcombe), p-value and p adjusted by Holm over all pairs (array formula)")
+        cell("A40").setString("Which ovens differ? Every pair: first oven's pass rate minus the second's, its 95 % "
+                              "confidence interval (Miettinen-Nurminen) holding for all pairs together, p-value, p "
+                              "adjusted by Bonferroni over all pairs, and the verdict (array formula)")
         cell("A40").CharWeight = 150
         bottom = PAIRS_TOP + PAIRS_ROWS - 1
-        cell("A%d:G%d" % (PAIRS_TOP, bottom)).setArrayFormula("RATES.PAIRS(%s;;;;%s)" % (COUNTS, LABELS))
+        cell("A%d:H%d" % (PAIRS_TOP, bottom)).setArrayFormula("RATES.PAIRS(%s;;;;;%s)" % (COUNTS, LABELS))
         cell("C%d:E%d" % (PAIRS_TOP + 1, bottom)).NumberFormat = number_format(doc, "+0.0%;-0.0%")
         cell("F%d:G%d" % (PAIRS_TOP + 1, bottom)).NumberFormat = number_format(doc, "0.0000")
-        cell("A%d:G%d" % (PAIRS_TOP, PAIRS_TOP)).CharWeight = 150
+        cell("A%d:H%d" % (PAIRS_TOP, PAIRS_TOP)).CharWeight = 150
         cell("C%d:G%d" % (PAIRS_TOP, PAIRS_TOP)).HoriJustify = 3  # RIGHT, over the numbers
-        cell("A%d:G%d" % (PAIRS_TOP, bottom)).IsTextWrapped = True
+        cell("A%d:H%d" % (PAIRS_TOP, bottom)).IsTextWrapped = True
         heading(cell("A%d" % PLAN_TOP), "How many more boards? Planning the next runs")
         cell("A%d" % PLAN_TOP).IsTextWrapped = False
         # One line per answer: the label runs over the empty cells B to F,

@@ -47,14 +47,14 @@ def main():
         print()
         print("  " + cell("A40").getString())
         for r in range(41, 63):
-            row = [lo.cell_text(cell("%s%d" % (c, r))) for c in "ABCDEFG"]
+            row = [lo.cell_text(cell("%s%d" % (c, r))) for c in "ABCDEFGH"]
             if any(row):
-                print("  %-22s %-22s %17s %19s %20s %14s %16s" % tuple(row))
-            errors += ["%s%d" % (c, r) for c, shown in zip("ABCDEFG", row) if shown.startswith("Err:")]
+                print("  %-22s %-22s %15s %14s %14s %14s %16s  %s" % tuple(row))
+            errors += ["%s%d" % (c, r) for c, shown in zip("ABCDEFGH", row) if shown.startswith("Err:")]
         errors += ["%s%d" % (c, r) for c in "FGHKLM" for r in range(5, 12) if lo.cell_text(cell("%s%d" % (c, r))).startswith("Err:")]
         print()
         print("  " + cell("A64").getString())
-        for r in range(65, 72):
+        for r in range(65, 73):
             shown = lo.cell_text(cell("G%d" % r))
             print("  %-100s %s" % (cell("A%d" % r).getString(), shown))
             if shown.startswith("Err:") or not shown:

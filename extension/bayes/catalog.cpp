@@ -24,10 +24,11 @@ using shared::successes;
     "keeps the prior), priors must lie from 0.01 to 1000000" also "; RATES.CHECK on the same ranges checks "  \
     "the counts."
 // The same for functions of two groups (i and j).
-#define WHY_502_POST_PAIR                                                                                   \
+#define WHY_502_POST_PAIR_ALSO(also)                                                                        \
     " If the cell shows Err:502: i and j must name two different filled rows of the range (a group with 0 "   \
-    "attempts is fine: it keeps the prior) and priors must lie from 0.01 to 1000000; RATES.CHECK on the same " \
-    "ranges checks the counts."
+    "attempts is fine: it keeps the prior), priors must lie from 0.01 to 1000000" also "; RATES.CHECK on the " \
+    "same ranges checks the counts."
+#define WHY_502_POST_PAIR WHY_502_POST_PAIR_ALSO("")
 // The same for functions of every group (no i): what else they take is
 // named where they are described.
 #define WHY_502_POST_ALL(also)                                                                              \
@@ -43,8 +44,10 @@ constexpr argument credible_level{
     arguments::default_level};
 constexpr argument kind{
     "kind",
-    "\"central\" (equal chance of lying below and above) or \"hpd\" (the shortest interval: starts at 0 % or "
-    "ends at 100 % when the counts are all failures or all successes).",
+    "\"central\" (equal chance of lying below and above: each bound is passed with probability (1 - level)/2), "
+    "\"hpd\" (the shortest interval: starts at 0 % or ends at 100 % when the counts are all failures or all "
+    "successes), or \"one-sided\" (each bound alone holds with probability level: \"the rate is at least LOW "
+    "with probability 95 %\"; level at least 0.5).",
     "\"central\""};
 constexpr argument rate{"rate",
                         "The target rate as a fraction, e.g. 0.99 for 99 % within specification (or, with goal "
@@ -59,8 +62,8 @@ constexpr std::array mean_args{successes, attempts, i, prior_a, prior_b};
 constexpr std::array bound_args{successes, attempts, i, credible_level, kind, prior_a, prior_b};
 constexpr std::array above_args{successes, attempts, i, rate, shared::goal, prior_a, prior_b};
 constexpr std::array next_args{successes, attempts, i, further, at_least, prior_a, prior_b};
-constexpr std::array ahead_args{successes, attempts, i, shared::j, prior_a, prior_b};
-constexpr std::array order_args{successes, attempts, prior_a, prior_b};
+constexpr std::array ahead_args{successes, attempts, i, shared::j, shared::goal, prior_a, prior_b};
+constexpr std::array order_args{successes, attempts, shared::goal, prior_a, prior_b};
 constexpr std::array diff_args{successes, attempts, i, shared::j, credible_level, prior_a, prior_b};
 constexpr std::array best_args{successes, attempts, i, shared::goal, prior_a, prior_b};
 constexpr argument prior_same{
@@ -81,12 +84,15 @@ constexpr std::array table{
              "default prior, (successes + 1) / (attempts + 2): 14 of 14 gives 93.8 %." WHY_502_POST(""),
              mean_args},
     function{"postLow", "RATES.POST.LOW",
-             "Lower end of the credible interval for the rate of group i: the rate lies above it with the chosen "
-             "probability split (a fraction; format as %). A group with no attempts yet gives the prior's "
-             "interval." WHY_502_POST(", level strictly between 0 and 1 and kind one of the words listed"),
+             "Lower credible bound for the rate of group i (a fraction; format as %): with kind \"central\" (the "
+             "default) the rate lies below it with probability (1 - level)/2, 2.5 % at 0.95; with \"one-sided\" "
+             "the rate is at least this with probability level. A group with no attempts yet gives the prior's "
+             "bound." WHY_502_POST(", level strictly between 0 and 1 and kind one of the words listed"),
              bound_args},
     function{"postHigh", "RATES.POST.HIGH",
-             "Upper end of the credible interval for the rate of group i (a fraction; format as %)."
+             "Upper credible bound for the rate of group i (a fraction; format as %): passed with probability "
+             "(1 - level)/2 for kind \"central\", the rate at most this with probability level for "
+             "\"one-sided\"."
              WHY_502_POST(", level strictly between 0 and 1 and kind one of the words listed"),
              bound_args},
     function{"postAbove", "RATES.POST.ABOVE",
@@ -100,25 +106,29 @@ constexpr std::array table{
              WHY_502_POST(", m and k whole numbers with k from 0 to m"),
              next_args},
     function{"postAhead", "RATES.POST.AHEAD",
-             "Probability that the rate of group i is above the rate of group j, given both groups' counts: "
-             "\"the pilot line is better than line 2 with probability 0.93\". i and j must differ." WHY_502_POST_PAIR
+             "Probability that group i has the better rate than group j, given both groups' counts: the higher "
+             "rate, or the lower with goal \"low\" (defect counts). \"The pilot line is better than line 2 with "
+             "probability 0.93\". i and j must differ." WHY_502_POST_PAIR_ALSO(" and goal one of the words listed")
              WHY_523_WORK,
              ahead_args},
     function{"postDiffLow", "RATES.POST.DIFF.LOW",
              "Lower end of the central credible interval for rate of group i minus rate of group j (a fraction; "
              "format as %): the difference lies below it with probability (1 - level) / 2, 2.5 % at the default "
-             "level. Above 0: the rate of group i is the higher one with probability at least 97.5 % (at 0.95)."
+             "level. Above 0: the rate of group i is the higher one with probability at least 97.5 % (at 0.95); "
+             "higher is better for counts of good units, worse for defect counts (RATES.POST.AHEAD with goal "
+             "\"low\" gives that probability directly)."
              WHY_502_POST_PAIR,
              diff_args},
     function{"postDiffHigh", "RATES.POST.DIFF.HIGH",
              "Upper end of the central credible interval for rate of group i minus rate of group j (a fraction; "
-             "format as %)." WHY_502_POST_PAIR,
+             "format as %): the difference lies above it with probability (1 - level) / 2. Below 0: the rate of "
+             "group i is the lower one with probability at least 97.5 % (at 0.95)." WHY_502_POST_PAIR,
              diff_args},
     function{"postOrder", "RATES.POST.ORDER",
              "Square array, one row and one column per filled row of the tally: the probability that the row "
-             "group's rate is above the column group's. Enter as an array formula G rows by G columns for G "
+             "group's rate is better than the column group's (above it; below it with goal \"low\"). Enter as an array formula G rows by G columns for G "
              "groups; the diagonal stays blank. Up to 100 groups (40 with a prior that is not a whole number); more "
-             "give Err:523." WHY_502_POST_ALL(""),
+             "give Err:523." WHY_502_POST_ALL(" and goal one of the words listed"),
              order_args, true},
     function{"postBest", "RATES.POST.BEST",
              "Probability that group i has the best rate of all the groups (the highest; the lowest with goal "
@@ -152,6 +162,7 @@ constexpr std::array table{
 
 #undef WHY_502_POST
 #undef WHY_502_POST_PAIR
+#undef WHY_502_POST_PAIR_ALSO
 #undef WHY_502_POST_ALL
 #undef WHY_523_WORK
 

@@ -43,7 +43,7 @@ std::pair<bayes::beta_law, bayes::beta_law> two_laws(const caller& document, con
 }
 
 bayes::goal goal_of(const Any& goal) {
-    return arguments::keyword_or(convert::word(goal, "goal"), bayes::default_goal, keywords::goal, "goal");
+    return keywords::goal_or_default(convert::word(goal, "goal"));
 }
 
 }  // namespace
@@ -82,10 +82,11 @@ double rates::postNext(const caller& document, const cells& successes, const cel
 }
 
 double rates::postAhead(const caller& document, const cells& successes, const cells& attempts, double i, double j,
-                        const Any& prior_a, const Any& prior_b) {
+                        const Any& goal, const Any& prior_a, const Any& prior_b) {
     return guarded([&] {
+        const auto better = goal_of(goal);
         const auto [x, y] = two_laws(document, successes, attempts, i, j, prior_a, prior_b);
-        return finite(bayes::ahead(x, y));
+        return finite(bayes::ahead(x, y, better));
     });
 }
 
@@ -111,11 +112,12 @@ double rates::postDiffHigh(const caller& document, const cells& successes, const
         [&] { return finite(difference_of(document, successes, attempts, i, j, level, prior_a, prior_b).high); });
 }
 
-array rates::postOrder(const caller& document, const cells& successes, const cells& attempts, const Any& prior_a,
-                       const Any& prior_b) {
+array rates::postOrder(const caller& document, const cells& successes, const cells& attempts, const Any& goal,
+                       const Any& prior_a, const Any& prior_b) {
     return guarded([&] {
+        const auto better = goal_of(goal);
         const auto laws = bayes::posteriors(convert::counts_of(document, successes, attempts), prior_of(prior_a, prior_b));
-        const auto cells = bayes::order(laws);
+        const auto cells = bayes::order(laws, better);
         std::vector<std::vector<Any>> rows;
         for (std::size_t r = 0; r < cells.size(); ++r) {
             rows.emplace_back();

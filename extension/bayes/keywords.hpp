@@ -7,19 +7,16 @@
 
 #include "tallyrates/core/arguments.hpp"
 #include "tallyrates/bayes/law.hpp"
+#include "../shared_keywords.hpp"
 
 namespace tallyrates::keywords {
 
 using arguments::word;
 
-inline constexpr std::array<word<bayes::kind>, 2> credible_kind{{
+inline constexpr std::array<word<bayes::kind>, 3> credible_kind{{
     {"central", bayes::kind::central},
     {"hpd", bayes::kind::hpd},
-}};
-
-inline constexpr std::array<word<bayes::goal>, 2> goal{{
-    {"high", bayes::goal::high},
-    {"low", bayes::goal::low},
+    {"one-sided", bayes::kind::one_sided},
 }};
 
 }  // namespace tallyrates::keywords

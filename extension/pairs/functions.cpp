@@ -6,6 +6,7 @@
 #include "../guard.hpp"
 #include "keywords.hpp"
 #include "tallyrates/core/errors.hpp"
+#include "tallyrates/pairs/margin.hpp"
 #include "tallyrates/pairs/one_rate.hpp"
 #include "tallyrates/pairs/pairwise.hpp"
 #include "tallyrates/core/text.hpp"
@@ -19,9 +20,10 @@ double level_of(const Any& level) {
 }
 
 pairwise::interval_options interval_options(const Any& level, const Any& method, const Any& adjust,
-                                            const Any& family) {
+                                            const Any& family, const Any& sides) {
     pairwise::interval_options o;
-    o.level = level_of(level);
+    o.level = convert::number(level, "level").value_or(arguments::default_level);
+    o.side = keywords::sides_or_default(convert::word(sides, "sides"));
     o.how = arguments::keyword_or(convert::word(method, "method"), o.how, keywords::difference_method, "method");
     o.adjust = arguments::keyword_or(convert::word(adjust, "adjust"), o.adjust, keywords::simultaneous, "adjust");
     o.comparisons = arguments::keyword_or(convert::word(family, "family"), o.comparisons, keywords::family, "family");
@@ -33,6 +35,7 @@ pairwise::interval_options interval_options(const Any& level, const Any& method,
 // shows blanks rather than #N/A below the table.
 array pairs_array(const counts& c, const std::vector<pairwise::pair_row>& rows, const pairwise::table_options& o,
                   std::string_view adjust_word) {
+    constexpr auto width = static_cast<sal_Int32>(pairwise::pairs_columns);
     const std::size_t r = c.range_size();
     const std::size_t height = std::max(rows.size() + 1, std::min<std::size_t>(r * (r - 1) / 2 + 1, 2000));
     array out(static_cast<sal_Int32>(height));
@@ -40,19 +43,21 @@ array pairs_array(const counts& c, const std::vector<pairwise::pair_row>& rows, 
         const std::string label = c.label_of(pos);
         return label.empty() ? Any(static_cast<double>(pos)) : Any(ou(label));
     };
-    css::uno::Sequence<Any> header(7);
+    css::uno::Sequence<Any> header(width);
     const auto titles = pairwise::pairs_header(o, rows.size(), adjust_word);
-    for (sal_Int32 col = 0; col < 7; ++col) header.getArray()[col] <<= ou(titles[static_cast<std::size_t>(col)]);
+    for (sal_Int32 col = 0; col < width; ++col) header.getArray()[col] <<= ou(titles[static_cast<std::size_t>(col)]);
     out.getArray()[0] = header;
     for (std::size_t k = 0; k < height - 1; ++k) {
-        css::uno::Sequence<Any> line(7);
+        css::uno::Sequence<Any> line(width);
         if (k < rows.size()) {
             const auto& p = rows[k];
-            const Any cells[7] = {name(p.i), name(p.j), Any(finite(p.difference)), Any(finite(p.bounds.low)),
-                                  Any(finite(p.bounds.high)), Any(finite(p.p)), Any(finite(p.p_adjusted))};
-            line = css::uno::Sequence<Any>(cells, 7);
+            const Any cells[pairwise::pairs_columns] = {
+                name(p.i),          name(p.j),    Any(finite(p.difference)),    Any(finite(p.bounds.low)),
+                Any(finite(p.bounds.high)), Any(finite(p.p)), Any(finite(p.p_adjusted)),
+                Any(ou(pairwise::verdict(c, p, o.better)))};
+            line = css::uno::Sequence<Any>(cells, width);
         } else {
-            for (sal_Int32 col = 0; col < 7; ++col) line.getArray()[col] <<= OUString();
+            for (sal_Int32 col = 0; col < width; ++col) line.getArray()[col] <<= OUString();
         }
         out.getArray()[static_cast<sal_Int32>(k + 1)] = line;
     }
@@ -80,8 +85,9 @@ double rates::diff(const caller& document, const cells& successes, const cells& 
 namespace {
 
 interval difference_bounds(const caller& document, const cells& successes, const cells& attempts, double i, double j,
-                           const Any& level, const Any& method, const Any& adjust, const Any& family) {
-    const auto o = interval_options(level, method, adjust, family);
+                           const Any& level, const Any& method, const Any& adjust, const Any& family,
+                           const Any& sides) {
+    const auto o = interval_options(level, method, adjust, family, sides);
     const auto c = convert::counts_of(document, successes, attempts);
     const auto [a, b] = pairwise::pair_at(c, i, j);
     return pairwise::difference_interval(c, a, b, o);
@@ -90,16 +96,18 @@ interval difference_bounds(const caller& document, const cells& successes, const
 }  // namespace
 
 double rates::diffLow(const caller& document, const cells& successes, const cells& attempts, double i, double j,
-                      const Any& level, const Any& method, const Any& adjust, const Any& family) {
+                      const Any& level, const Any& method, const Any& adjust, const Any& family,
+                      const Any& sides) {
     return guarded([&] {
-        return finite(difference_bounds(document, successes, attempts, i, j, level, method, adjust, family).low);
+        return finite(difference_bounds(document, successes, attempts, i, j, level, method, adjust, family, sides).low);
     });
 }
 
 double rates::diffHigh(const caller& document, const cells& successes, const cells& attempts, double i, double j,
-                       const Any& level, const Any& method, const Any& adjust, const Any& family) {
+                       const Any& level, const Any& method, const Any& adjust, const Any& family,
+                       const Any& sides) {
     return guarded([&] {
-        return finite(difference_bounds(document, successes, attempts, i, j, level, method, adjust, family).high);
+        return finite(difference_bounds(document, successes, attempts, i, j, level, method, adjust, family, sides).high);
     });
 }
 
@@ -117,7 +125,7 @@ double rates::pairP(const caller& document, const cells& successes, const cells&
 }
 
 array rates::pairs(const caller& document, const cells& successes, const cells& attempts, const Any& level,
-                   const Any& method, const Any& adjust, const Any& labels) {
+                   const Any& method, const Any& adjust, const Any& goal, const Any& labels) {
     return guarded([&] {
         try {
             pairwise::table_options o;
@@ -126,6 +134,7 @@ array rates::pairs(const caller& document, const cells& successes, const cells& 
             const auto both = arguments::keyword_or(convert::word(adjust, "adjust"), std::pair{o.intervals, o.p},
                                                     keywords::pairs_adjust, "adjust");
             std::tie(o.intervals, o.p) = both;
+            o.better = keywords::goal_or_default(convert::word(goal, "goal"));
             const auto names = convert::optional_texts(labels, "labels");
             const auto c = convert::counts_of(document, successes, attempts, names);
             return pairs_array(c, pairwise::pairs_table(c, o, &pairs_cache_), o,
@@ -136,26 +145,39 @@ array rates::pairs(const caller& document, const cells& successes, const cells& 
     });
 }
 
+double rates::marginP(const caller& document, const cells& successes, const cells& attempts, double i, double j,
+                      double margin, const Any& claim, const Any& goal) {
+    return guarded([&] {
+        const auto what = arguments::keyword_or(convert::word(claim, "claim"), pairwise::default_claim, keywords::claim,
+                                                "claim");
+        const auto better = keywords::goal_or_default(convert::word(goal, "goal"));
+        const auto c = convert::counts_of(document, successes, attempts);
+        const auto [a, b] = pairwise::pair_at(c, i, j);
+        return finite(pairwise::margin_p(a, b, margin, what, better));
+    });
+}
+
 namespace {
 
 interval one_bounds(const caller& document, const cells& successes, const cells& attempts, double i, const Any& level,
-                    const Any& method) {
-    const double lv = level_of(level);
+                    const Any& method, const Any& sides) {
+    const double lv = convert::number(level, "level").value_or(arguments::default_level);
     const auto how = keywords::one_rate_method_or_wilson(convert::word(method, "method"));
+    const auto side = keywords::sides_or_default(convert::word(sides, "sides"));
     const auto c = convert::counts_of(document, successes, attempts);
-    return one_rate::bounds(c.with_attempts_at(i, "i"), lv, how);
+    return one_rate::bounds(c.with_attempts_at(i, "i"), lv, how, side);
 }
 
 }  // namespace
 
 double rates::oneLow(const caller& document, const cells& successes, const cells& attempts, double i,
-                     const Any& level, const Any& method) {
-    return guarded([&] { return finite(one_bounds(document, successes, attempts, i, level, method).low); });
+                     const Any& level, const Any& method, const Any& sides) {
+    return guarded([&] { return finite(one_bounds(document, successes, attempts, i, level, method, sides).low); });
 }
 
 double rates::oneHigh(const caller& document, const cells& successes, const cells& attempts, double i,
-                      const Any& level, const Any& method) {
-    return guarded([&] { return finite(one_bounds(document, successes, attempts, i, level, method).high); });
+                      const Any& level, const Any& method, const Any& sides) {
+    return guarded([&] { return finite(one_bounds(document, successes, attempts, i, level, method, sides).high); });
 }
 
 }  // namespace tallyrates::uno

@@ -89,9 +89,13 @@ constexpr std::array ahead_args{
     argument{"i", "Position of the group still proving itself (the pilot oven, the new process) in the range.", ""},
     argument{"j", "Position of the group it must beat (the established line), counted the same way.", ""},
     argument{"confidence",
-             "How sure you want to be that group i has the higher rate, between 0 and 1: 0.95 for 95 in 100 "
+             "How sure you want to be that group i has the better rate, between 0 and 1: 0.95 for 95 in 100 "
              "(as RATES.POST.AHEAD gives it).",
              ""},
+    argument{"goal",
+             "\"high\" when the counts are good units: further attempts must all succeed; \"low\" when they are "
+             "defects: further attempts must all be free of the defect, and group i must reach the lower rate.",
+             "\"high\""},
     shared::prior_a,
     shared::prior_b};
 
@@ -99,7 +103,10 @@ constexpr std::array table{
     function{"planDemo", "RATES.PLAN.DEMO",
              "Units to test in a demonstration test: if no more of them fail than the failures allowed, the rate "
              "is shown to be at least the one given, with the chosen confidence. With no failure allowed (a zero-failure plan), "
-             "0.99 at 95 % confidence takes 299 units in a row." WHY_502_PLAN WHY_523_PLAN
+             "0.99 at 95 % confidence takes 299 units in a row. The claim is one-sided: once the test is run, "
+             "RATES.ONE.LOW of the result with the same confidence, \"clopper-pearson\" and sides \"one\" "
+             "reaches the rate (59 of 59 at 0.95 gives 95.05 %), and with one unit fewer it would not."
+             WHY_502_PLAN WHY_523_PLAN
              " (a rate of 1: 100 % can never be shown by testing).",
              demo_args},
     function{"planMore", "RATES.PLAN.MORE",

@@ -60,14 +60,15 @@ double rates::planPower(const caller&, double rate_1, double rate_2, const Any& 
 }
 
 double rates::planAhead(const caller& document, const cells& successes, const cells& attempts, double i, double j,
-                        double confidence, const Any& prior_a, const Any& prior_b) {
+                        double confidence, const Any& goal, const Any& prior_a, const Any& prior_b) {
     return guarded([&] {
+        const auto better = keywords::goal_or_default(convert::word(goal, "goal"));
         const auto c = convert::counts_of(document, successes, attempts);
         const group& a = c.at_position(i, "i");
         const group& b = c.at_position(j, "j");
         pairwise::distinct(a, b);
         const auto p = prior_of(prior_a, prior_b);
-        return attempts_of(planning::ahead(bayes::posterior(a, p), bayes::posterior(b, p), confidence));
+        return attempts_of(planning::ahead(bayes::posterior(a, p), bayes::posterior(b, p), confidence, better));
     });
 }
 

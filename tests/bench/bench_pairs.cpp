@@ -36,7 +36,7 @@ void all_pairs_intervals(benchmark::State& state, pairwise::interval_method how)
             for (double j = i + 1; j <= 12; ++j) benchmark::DoNotOptimize(cell::difference_interval(c, i, j, o));
 }
 void BM_66_pairs_newcombe(benchmark::State& s) { all_pairs_intervals(s, pairwise::interval_method::newcombe); }
-void BM_66_pairs_score(benchmark::State& s) { all_pairs_intervals(s, pairwise::interval_method::score); }
+void BM_66_pairs_score(benchmark::State& s) { all_pairs_intervals(s, pairwise::interval_method::miettinen_nurminen); }
 void BM_66_pairs_agresti_caffo(benchmark::State& s) { all_pairs_intervals(s, pairwise::interval_method::agresti_caffo); }
 void BM_66_pairs_wald(benchmark::State& s) { all_pairs_intervals(s, pairwise::interval_method::wald); }
 BENCHMARK(BM_66_pairs_newcombe)->Unit(benchmark::kMicrosecond);
@@ -61,7 +61,7 @@ BENCHMARK(BM_66_pairs_p_exact)->Unit(benchmark::kMicrosecond);
 void BM_pairs_table_score_cold(benchmark::State& state) {
     const auto c = twelve_lines();
     pairwise::table_options o;
-    o.how = pairwise::interval_method::score;
+    o.how = pairwise::interval_method::miettinen_nurminen;
     for (auto _ : state) benchmark::DoNotOptimize(pairwise::pairs_table(c, o));
 }
 BENCHMARK(BM_pairs_table_score_cold)->Unit(benchmark::kMicrosecond);
@@ -70,7 +70,7 @@ BENCHMARK(BM_pairs_table_score_cold)->Unit(benchmark::kMicrosecond);
 void BM_cell_diff_low_score(benchmark::State& state) {
     const auto c = twelve_lines();
     pairwise::interval_options o;
-    o.how = pairwise::interval_method::score;
+    o.how = pairwise::interval_method::miettinen_nurminen;
     for (auto _ : state) benchmark::DoNotOptimize(cell::difference_interval(c, 1, 12, o));
 }
 // A Holm-adjusted exact p for one pair: every pair's p of the family, or,
@@ -88,7 +88,7 @@ void BM_cell_pair_p_holm_exact_cached(benchmark::State& state) {
     cell_pair_p_holm_exact(state, &cache);
 }
 void BM_cell_one_exact(benchmark::State& state) {
-    for (auto _ : state) benchmark::DoNotOptimize(one_rate::bounds(987, 1200, 0.95, one_rate::method::exact));
+    for (auto _ : state) benchmark::DoNotOptimize(one_rate::bounds(987, 1200, 0.95, one_rate::method::clopper_pearson));
 }
 void BM_cell_pair_p_exact_million(benchmark::State& state) {
     const group a{1, 999123, 1000000}, b{2, 998800, 1000000};

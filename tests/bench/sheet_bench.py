@@ -153,7 +153,7 @@ def pairs(office):
         sheet = doc.Sheets.getByIndex(0)
         fill_twelve(sheet)
         if name == "PAIRS block":
-            sheet.getCellRangeByName("H1:N67").setArrayFormula("RATES.PAIRS(A1:A12;C1:C12;;;;F1:F12)")
+            sheet.getCellRangeByName("H1:O67").setArrayFormula("RATES.PAIRS(A1:A12;C1:C12;;;;;F1:F12)")
             cells = [("=RATES.DIFF.LOW(A1:A12;C1:C12;%d;%d)" % ab, "=RATES.DIFF.HIGH(A1:A12;C1:C12;%d;%d)" % ab)
                      for ab in pairs_list]
             sheet.getCellRangeByName("P1:Q66").setFormulaArray(tuple(cells))

@@ -134,7 +134,17 @@ TEST(Catalog, EveryDefaultIsTheEngines) {
         {{"postAbove", "goal"}, quoted(bayes::default_goal, keywords::goal)},
         {{"postBest", "goal"}, quoted(bayes::default_goal, keywords::goal)},
         {{"postLoss", "goal"}, quoted(bayes::default_goal, keywords::goal)},
-        {{"postTable", "goal"}, quoted(bayes::default_goal, keywords::goal)}};
+        {{"postTable", "goal"}, quoted(bayes::default_goal, keywords::goal)},
+        {{"postAhead", "goal"}, quoted(default_goal, keywords::goal)},
+        {{"postOrder", "goal"}, quoted(default_goal, keywords::goal)},
+        {{"planAhead", "goal"}, quoted(default_goal, keywords::goal)},
+        {{"pairs", "goal"}, quoted(table.better, keywords::goal)},
+        {{"marginP", "goal"}, quoted(default_goal, keywords::goal)},
+        {{"marginP", "claim"}, quoted(pairwise::default_claim, keywords::claim)},
+        {{"diffLow", "sides"}, quoted(interval.side, keywords::sides)},
+        {{"diffHigh", "sides"}, quoted(interval.side, keywords::sides)},
+        {{"oneLow", "sides"}, quoted(default_sides, keywords::sides)},
+        {{"oneHigh", "sides"}, quoted(default_sides, keywords::sides)}};
     const std::set<std::string> notes{"labels", "i", "j", "k", "scores", "correction"};
     std::size_t numbers_seen = 0, words_seen = 0;
     for (const auto& f : catalog::functions())

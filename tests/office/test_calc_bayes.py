@@ -24,11 +24,14 @@ FORMULA = {
     "post_hpd_high": '=RATES.POST.HIGH({r};1;0.95;"HPD";{a};{b})',
     "post_above": '=RATES.POST.ABOVE({r};1;{rest[0]};"high";{a};{b})',
     "post_next": "=RATES.POST.NEXT({r};1;{rest[0]};{rest[1]};{a};{b})",
+    "post_onesided_low": '=RATES.POST.LOW({r};1;0.95;"one-sided";{a};{b})',
+    "post_onesided_high": '=RATES.POST.HIGH({r};1;;"one-sided";{a};{b})',
 }
 
 
 COMPARE = {
-    "post_ahead": "=RATES.POST.AHEAD({r};{rest[0]};{rest[1]};{a};{b})",
+    "post_ahead": "=RATES.POST.AHEAD({r};{rest[0]};{rest[1]};;{a};{b})",
+    "post_aheadlow": '=RATES.POST.AHEAD({r};{rest[0]};{rest[1]};"low";{a};{b})',
     "post_best": "=RATES.POST.BEST({r};{rest[0]};;{a};{b})",
     "post_loss": '=RATES.POST.LOSS({r};{rest[0]};"high";{a};{b})',
     "post_same": "=RATES.POST.SAME({r};{rest[0]};{a};{b})",
@@ -55,10 +58,10 @@ class Posterior(SheetCase):
         return checked
 
     def test_every_reference_row(self):
-        self.assertEqual(self.check_rows(FORMULA, 1e-8), 54)
+        self.assertEqual(self.check_rows(FORMULA, 1e-8), 54 + 14)
 
     def test_comparisons_of_groups(self):
-        self.assertEqual(self.check_rows(COMPARE, 1e-7), 68)
+        self.assertEqual(self.check_rows(COMPARE, 1e-7), 68 + 6)
 
     def test_order_array_beside_a_tally_with_a_blank_row(self):
         # Four ovens with a blank row between: the array is 4 x 4 over the filled rows.
@@ -73,6 +76,12 @@ class Posterior(SheetCase):
         self.assertEqual(cell("F4").getValue(), self.value_of("I2"))
         # c_ovens, post_ahead 1 over 2: Cook (2005)'s sum in 50-digit mpmath (bayes.csv).
         self.assertAlmostEqual(cell("E1").getValue(), 0.8376146424373224, delta=1e-10)
+        # Goal "low" (defect counts): row better than column means a lower
+        # rate, the transpose.
+        self.sheet.getCellRangeByName("D6:G9").setArrayFormula('RATES.POST.ORDER(%s;"low")' % r)
+        self.doc.calculateAll()
+        self.assertEqual(cell("E6").getValue(), cell("D2").getValue())
+        self.assertEqual(cell("F9").getValue(), cell("G3").getValue())
         self.assertAlmostEqual(cell("E1").getValue() + cell("D2").getValue(), 1.0, delta=1e-12)
 
     def test_table_and_curves_beside_a_tally(self):
@@ -84,7 +93,7 @@ class Posterior(SheetCase):
         self.doc.calculateAll()
         cell = lambda a: self.sheet.getCellRangeByName(a)
         self.assertEqual([cell(c + "1").getString() for c in "EFGHIJ"],
-                         ["group", "expected rate", "low (90 %)", "high (90 %)", "P(best)", "expected loss"])
+                         ["group", "expected rate", "credible low (90 %)", "credible high (90 %)", "P(best)", "expected loss"])
         self.assertEqual(cell("E3").getString(), "Oven B")
         for col, text in (("F", "=RATES.POST.MEAN(%s;2)"), ("G", '=RATES.POST.LOW(%s;2;0.9)'),
                           ("H", "=RATES.POST.HIGH(%s;2;0.9)"), ("I", "=RATES.POST.BEST(%s;2)"),

@@ -22,27 +22,43 @@ class DifferenceIntervals(SheetCase):
             want = rows_of(case)
             any_row = next(iter(want.values()))
             r = self.put_counts(any_row["successes"], any_row["attempts"])
-            for method in ("newcombe", "score", "agresti_caffo", "wald"):
+            for method in ("newcombe", "miettinen_nurminen", "agresti_caffo", "wald"):
                 word = method.replace("_", "-")
                 self.formula("D1", '=RATES.DIFF.LOW(%s;1;2;;"%s")' % (r, word))
                 self.formula("D2", '=RATES.DIFF.HIGH(%s;1;2;0.95;"%s")' % (r, word))
-                tol = 1e-9 if method == "score" else 1e-10
+                tol = 1e-9 if method == "miettinen_nurminen" else 1e-10
                 for address, end in (("D1", "low"), ("D2", "high")):
                     row = want["diff_%s_%s" % (method, end)]
                     self.assertAlmostEqual(self.value_of(address), row["value"], delta=tol,
                                            msg="%s %s (%s)" % (case, row["quantity"], row["source"]))
 
-    def test_default_is_newcombe_and_adjusting_widens(self):
+    def test_default_is_miettinen_nurminen_over_every_pair(self):
         r = self.put_counts([45, 171, 12, 30], [50, 190, 12, 40])
         self.formula("D1", "=RATES.DIFF.LOW(%s;1;2)" % r)
-        self.formula("D2", '=RATES.DIFF.LOW(%s;1;2;0.95;"newcombe";"none";"all")' % r)
-        self.formula("D3", '=RATES.DIFF.LOW(%s;1;2;;;"bonferroni")' % r)
+        self.formula("D2", '=RATES.DIFF.LOW(%s;1;2;0.95;"miettinen-nurminen";"bonferroni";"all";"two")' % r)
+        self.formula("D3", '=RATES.DIFF.LOW(%s;1;2;;;"none")' % r)
         self.formula("D4", '=RATES.DIFF.LOW(%s;1;2;;;"bonferroni";"against")' % r)
         self.assertEqual(self.value_of("D1"), self.value_of("D2"))
         # Common practice, no source: joint intervals over 6 pairs are wider
         # than over the 3 comparisons against one group, wider than one alone.
-        self.assertLess(self.value_of("D3"), self.value_of("D4"))
-        self.assertLess(self.value_of("D4"), self.value_of("D1"))
+        self.assertLess(self.value_of("D1"), self.value_of("D4"))
+        self.assertLess(self.value_of("D4"), self.value_of("D3"))
+
+    def test_one_sided_bounds_match_the_reference(self):
+        # diffsided_*: the ends of the 90 % interval, one-sided 95 % bounds
+        # (mn_interval of pairs.py; statsmodels for Newcombe).
+        for case in ("p_mid", "p_pilot", "p_zero_vs_all"):
+            want = rows_of(case)
+            any_row = next(iter(want.values()))
+            r = self.put_counts(any_row["successes"], any_row["attempts"])
+            for method in ("newcombe", "miettinen_nurminen"):
+                word = method.replace("_", "-")
+                self.formula("D1", '=RATES.DIFF.LOW(%s;1;2;0.95;"%s";"none";;"one")' % (r, word))
+                self.formula("D2", '=RATES.DIFF.HIGH(%s;1;2;0.95;"%s";;;"one")' % (r, word))
+                for address, end in (("D1", "low"), ("D2", "high")):
+                    row = want["diffsided_%s_%s" % (method, end)]
+                    self.assertAlmostEqual(self.value_of(address), row["value"], delta=1e-9,
+                                           msg="%s %s (%s)" % (case, row["quantity"], row["source"]))
 
 
 class PairTests(SheetCase):
@@ -62,7 +78,8 @@ class PairTests(SheetCase):
         any_row = next(iter(want.values()))
         r = self.put_counts(any_row["successes"], any_row["attempts"])
         cases = [("D1", '=RATES.PAIR.P(%s;2;4;"holm")' % r, "family_score_holm_all_2_4"),
-                 ("D2", '=RATES.PAIR.P(%s;3;5;"bh")' % r, "family_score_bh_all_3_5"),
+                 ("D2", '=RATES.PAIR.P(%s;3;5;"benjamini-hochberg")' % r,
+                  "family_score_benjamini-hochberg_all_3_5"),
                  ("D3", '=RATES.PAIR.P(%s;4;1;"hochberg";;"against")' % r, "family_score_hochberg_against1_1_4"),
                  ("D4", '=RATES.PAIR.P(%s;1;5;"bonferroni";"exact")' % r, "family_exact_bonferroni_all_1_5")]
         for address, text, q in cases:
@@ -80,21 +97,22 @@ class PairsTable(SheetCase):
         r = self.put_counts(x + [None, None], n + [None, None])
         for k, name in enumerate(["Line 1", "Line 2", "Line 3", "Line 4", "Line 5"]):
             self.sheet.getCellRangeByName("C%d" % (k + 1)).setString(name)
-        self.sheet.getCellRangeByName("E1:K22").setArrayFormula('RATES.PAIRS(%s;;;"holm";C1:C7)' % r)
+        self.sheet.getCellRangeByName("E1:L22").setArrayFormula('RATES.PAIRS(%s;;;"holm";;C1:C7)' % r)
         self.doc.calculateAll()
         cell = lambda c, k: self.sheet.getCellRangeByName("%s%d" % (c, k))
         self.assertEqual(cell("E", 1).getString(), "group i (10 pairs, 11 rows)")
-        self.assertEqual(cell("H", 1).getString(), "low (95 % each)")
+        self.assertEqual(cell("H", 1).getString(), "confidence low (95 % each)")
         self.assertEqual(cell("K", 1).getString(), "p adjusted (holm)")
+        self.assertEqual(cell("L", 1).getString(), "verdict (holm p below 0.05, interval clear of 0)")
         pairs = [(a, b) for a in range(1, 6) for b in range(a + 1, 6)]
         for k, (a, b) in enumerate(pairs):
             row = k + 2
             self.assertEqual(cell("E", row).getString(), "Line %d" % a)
             self.assertEqual(cell("F", row).getString(), "Line %d" % b)
             self.formula("M1", "=RATES.DIFF(%s;%d;%d)" % (r, a, b))
-            self.formula("M2", "=RATES.DIFF.LOW(%s;%d;%d)" % (r, a, b))
-            self.formula("M3", "=RATES.DIFF.HIGH(%s;%d;%d)" % (r, a, b))
-            self.formula("M4", "=RATES.PAIR.P(%s;%d;%d)" % (r, a, b))
+            self.formula("M2", '=RATES.DIFF.LOW(%s;%d;%d;;;"none")' % (r, a, b))
+            self.formula("M3", '=RATES.DIFF.HIGH(%s;%d;%d;;;"none")' % (r, a, b))
+            self.formula("M4", '=RATES.PAIR.P(%s;%d;%d;"none")' % (r, a, b))
             self.formula("M5", '=RATES.PAIR.P(%s;%d;%d;"holm")' % (r, a, b))
             self.doc.calculateAll()
             for col, address in zip("GHIJK", ("M1", "M2", "M3", "M4", "M5")):
@@ -103,20 +121,88 @@ class PairsTable(SheetCase):
             q = "family_score_holm_all_%d_%d" % (a, b)
             self.assertLessEqual(abs(cell("K", row).getValue() - want[q]["value"]), 1e-10 * want[q]["value"],
                                  want[q]["source"])
+            verdict = cell("L", row).getString()
+            called = cell("K", row).getValue() < 0.05 and (cell("H", row).getValue() > 0 or cell("I", row).getValue() < 0)
+            self.assertEqual(verdict != "no clear difference", called, verdict)
         # Surplus rows of the selection are blank, not #N/A.
         for k in range(12, 23):
             self.assertEqual(cell("E", k).getError(), 0)
             self.assertEqual(cell("E", k).getString(), "")
 
+    def test_defaults_agree_with_the_single_cells_and_say_so(self):
+        # Five invented supplier lots counted as defects (goal "low").
+        x, n = [3, 4, 41, 2, 5], [500, 520, 480, 510, 495]
+        r = self.put_counts(x, n)
+        for k, name in enumerate(["Lot A", "Lot B", "Lot C", "Lot D", "Lot E"]):
+            self.sheet.getCellRangeByName("C%d" % (k + 1)).setString(name)
+        self.sheet.getCellRangeByName("E1:L11").setArrayFormula('RATES.PAIRS(%s;;;;"low";C1:C5)' % r)
+        self.doc.calculateAll()
+        cell = lambda c, k: self.sheet.getCellRangeByName("%s%d" % (c, k))
+        self.assertEqual(cell("H", 1).getString(), "confidence low (95 % jointly, Bonferroni)")
+        self.assertEqual(cell("K", 1).getString(), "p adjusted (bonferroni)")
+        self.assertEqual(cell("L", 1).getString(), "verdict (all pairs together, 95 %)")
+        table = [[cell(c, k).getString() if c in "EFL" or k == 1 else cell(c, k).getValue() for c in "EFGHIJKL"]
+                 for k in range(1, 12)]
+        print("\nRATES.PAIRS, five supplier lots, goal low:")
+        for line in table:
+            print("  " + " | ".join(v if isinstance(v, str) else "%.4g" % v for v in line))
+        pairs = [(a, b) for a in range(1, 6) for b in range(a + 1, 6)]
+        for k, (a, b) in enumerate(pairs):
+            row = k + 2
+            self.formula("M1", "=RATES.DIFF.LOW(%s;%d;%d)" % (r, a, b))
+            self.formula("M2", "=RATES.DIFF.HIGH(%s;%d;%d)" % (r, a, b))
+            self.formula("M3", "=RATES.PAIR.P(%s;%d;%d)" % (r, a, b))
+            self.doc.calculateAll()
+            self.assertEqual(cell("H", row).getValue(), self.value_of("M1"))
+            self.assertEqual(cell("I", row).getValue(), self.value_of("M2"))
+            self.assertEqual(cell("K", row).getValue(), self.value_of("M3"))
+            # With the defaults an interval clear of 0 and a small adjusted p go together.
+            clear = self.value_of("M1") > 0 or self.value_of("M2") < 0
+            self.assertEqual(clear, self.value_of("M3") < 0.05, (a, b))
+            expected = "no clear difference"
+            if clear:
+                fewer = a if cell("G", row).getValue() < 0 else b
+                expected = "Lot %s fewer defects" % "ABCDE"[fewer - 1]
+            self.assertEqual(cell("L", row).getString(), expected, (a, b))
+        self.assertEqual(cell("L", 3).getString(), "Lot A fewer defects")  # A against C
+
     def test_problems_show_in_the_first_cell(self):
         r = self.put_counts([4, 9], [10, 8])
-        self.sheet.getCellRangeByName("E1:K2").setArrayFormula("RATES.PAIRS(%s)" % r)
+        self.sheet.getCellRangeByName("E1:L2").setArrayFormula("RATES.PAIRS(%s)" % r)
         self.doc.calculateAll()
         self.assertIn("problem: Position 2 of the range: successes (9) exceed attempts (8)",
                       self.sheet.getCellRangeByName("E1").getString())
-        self.sheet.getCellRangeByName("E1:K2").setArrayFormula('RATES.PAIRS(%s;;;"tukey")' % r)
+        for word in ('"tukey"', '"bh"'):  # "bh" is retired: the full name only
+            self.sheet.getCellRangeByName("E1:L2").setArrayFormula('RATES.PAIRS(%s;;;%s)' % (r, word))
+            self.doc.calculateAll()
+            self.assertIn('"benjamini-hochberg"', self.sheet.getCellRangeByName("E1").getString())
+        self.sheet.getCellRangeByName("E1:L2").setArrayFormula('RATES.PAIRS(%s;;;;"lower")' % r)
         self.doc.calculateAll()
-        self.assertIn('"holm"', self.sheet.getCellRangeByName("E1").getString())
+        self.assertIn('"high"', self.sheet.getCellRangeByName("E1").getString())
+
+
+class Margins(SheetCase):
+    def test_every_claim_matches_the_reference(self):
+        # margin_*: Farrington & Manning (1990) in 50-digit mpmath (pairs.py).
+        rows = [r for r in harness.reference_rows() if r["quantity"].startswith("margin_")]
+        self.assertEqual(len(rows), 14)
+        for row in rows:
+            _, claim, goal, margin = row["quantity"].split("_")
+            r = self.put_counts(row["successes"], row["attempts"])
+            self.formula("D1", '=RATES.MARGIN.P(%s;1;2;%s;"%s";"%s")' % (r, margin, claim, goal))
+            self.assertAlmostEqual(self.value_of("D1"), row["value"], delta=1e-10 * row["value"] + 1e-13,
+                                   msg="%s %s (%s)" % (row["case"], row["quantity"], row["source"]))
+
+    def test_defaults_and_refusals(self):
+        r = self.put_counts([482, 1431], [500, 1500])
+        self.formula("D1", "=RATES.MARGIN.P(%s;1;2;0.01)" % r)
+        self.formula("D2", '=RATES.MARGIN.P(%s;1;2;0.01;"not-worse";"high")' % r)
+        self.assertEqual(self.value_of("D1"), self.value_of("D2"))
+        for text in ("=RATES.MARGIN.P(%s;1;2;-0.01)" % r, '=RATES.MARGIN.P(%s;1;2;0;"equivalent")' % r,
+                     '=RATES.MARGIN.P(%s;1;2;0.01;"similar")' % r, "=RATES.MARGIN.P(%s;1;1;0.01)" % r,
+                     '=RATES.MARGIN.P(%s;1;2;0.01;;"lower")' % r):
+            self.formula("D3", text)
+            self.assertEqual(self.shown("D3"), "Err:502", text)
 
 
 class OneRate(SheetCase):
@@ -125,13 +211,40 @@ class OneRate(SheetCase):
             want = rows_of(case)
             any_row = next(iter(want.values()))
             r = self.put_counts(any_row["successes"], any_row["attempts"])
-            for method in ("wilson", "exact", "jeffreys", "agresti_coull"):
+            for method in ("wilson", "clopper_pearson", "jeffreys", "agresti_coull"):
                 self.formula("D1", '=RATES.ONE.LOW(%s;1;;"%s")' % (r, method.replace("_", "-")))
                 self.formula("D2", '=RATES.ONE.HIGH(%s;1;0.95;"%s")' % (r, method.replace("_", "-")))
                 for address, end in (("D1", "low"), ("D2", "high")):
                     row = want["one_%s_%s" % (method, end)]
                     self.assertAlmostEqual(self.value_of(address), row["value"], delta=1e-12 + 1e-10 * row["value"],
                                            msg="%s %s (%s)" % (case, row["quantity"], row["source"]))
+
+    def test_one_sided_bounds_match_scipy_and_statsmodels(self):
+        for case in ("one_zero", "one_all", "one_mid"):
+            want = rows_of(case)
+            any_row = next(iter(want.values()))
+            r = self.put_counts(any_row["successes"], any_row["attempts"])
+            for method in ("wilson", "clopper_pearson", "jeffreys", "agresti_coull"):
+                word = method.replace("_", "-")
+                self.formula("D1", '=RATES.ONE.LOW(%s;1;0.95;"%s";"one")' % (r, word))
+                self.formula("D2", '=RATES.ONE.HIGH(%s;1;;"%s";"one")' % (r, word))
+                for address, end in (("D1", "low"), ("D2", "high")):
+                    row = want["sided_%s_%s" % (method, end)]
+                    self.assertAlmostEqual(self.value_of(address), row["value"], delta=1e-12 + 1e-10 * row["value"],
+                                           msg="%s %s (%s)" % (case, row["quantity"], row["source"]))
+
+    def test_a_demonstration_passes_its_own_check(self):
+        # 59 of 59 meets RATES.PLAN.DEMO(0.95; 0.95); the one-sided
+        # Clopper-Pearson bound reaches 95 % (0.05^(1/59), the zero-failure
+        # formula, common practice), the two-sided one does not.
+        r = self.put_counts([59], [59])
+        self.formula("D1", "=RATES.PLAN.DEMO(0.95;0.95)")
+        self.formula("D2", '=RATES.ONE.LOW(%s;1;0.95;"clopper-pearson";"one")' % r)
+        self.formula("D3", '=RATES.ONE.LOW(%s;1;0.95;"clopper-pearson")' % r)
+        self.assertEqual(self.value_of("D1"), 59)
+        self.assertAlmostEqual(self.value_of("D2"), 0.05 ** (1 / 59), delta=1e-13)
+        self.assertGreaterEqual(self.value_of("D2"), 0.95)
+        self.assertLess(self.value_of("D3"), 0.95)
 
 
 class Residuals(SheetCase):
@@ -168,8 +281,14 @@ class Errors(SheetCase):
             self.formula("F2", "=RATES.CHECK(%s;;%s)" % (r, positions))
             self.assertEqual(self.shown("F1"), "Err:502", text)
             self.assertIn(words, self.shown("F2"), text)
+        # Out of range, unknown, and the retired short words ("exact" and
+        # "score" as interval methods, "bh").
         for text in ('=RATES.ONE.LOW(%s;1;1.5)' % r, '=RATES.DIFF.LOW(%s;1;4;;"exact")' % r,
-                     '=RATES.PAIR.P(%s;1;4;"tukey")' % r, '=RATES.DIFF.LOW(%s;1;4;;;;"some")' % r):
+                     '=RATES.PAIR.P(%s;1;4;"tukey")' % r, '=RATES.DIFF.LOW(%s;1;4;;;;"some")' % r,
+                     '=RATES.ONE.LOW(%s;1;;"exact")' % r, '=RATES.ONE.HIGH(%s;1;;"exact")' % r,
+                     '=RATES.DIFF.LOW(%s;1;4;;"score")' % r, '=RATES.DIFF.HIGH(%s;1;4;;"score")' % r,
+                     '=RATES.PAIR.P(%s;1;4;"bh")' % r, '=RATES.ONE.LOW(%s;1;0.3;;"one")' % r,
+                     '=RATES.ONE.LOW(%s;1;;;"three")' % r, '=RATES.DIFF.LOW(%s;1;4;;;;;"both")' % r):
             self.formula("F1", text)
             self.assertEqual(self.shown("F1"), "Err:502", text)
         self.formula("F3", "=RATES.CHECK(%s;;;1;4)" % r)

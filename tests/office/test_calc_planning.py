@@ -9,7 +9,7 @@ through a cell; each comparison names its source.
 import harness
 from harness import SheetCase
 
-METHOD_WORD = {"wilson": "wilson", "exact": "exact", "jeffreys": "jeffreys", "agresti_coull": "agresti-coull"}
+METHOD_WORD = {"wilson": "wilson", "clopper_pearson": "clopper-pearson", "jeffreys": "jeffreys", "agresti_coull": "agresti-coull"}
 
 
 def plan_rows():
@@ -35,20 +35,22 @@ def formula_of(row, r):
         # The correction both ways Calc passes it: TRUE/FALSE and the words.
         switch = {"none": "FALSE()", "continuity": '"continuity"'}[a[4]]
         return "=RATES.PLAN.POWER(%s;%s;%s;%s;%s)" % (a[0], a[1], a[2], a[3], switch)
-    return "=RATES.PLAN.AHEAD(%s;1;2;%s;%s;%s)" % (r, a[2], a[0], a[1])
+    if row["what"] == "plan_aheadlow":
+        return '=RATES.PLAN.AHEAD(%s;1;2;%s;"low";%s;%s)' % (r, a[2], a[0], a[1])
+    return "=RATES.PLAN.AHEAD(%s;1;2;%s;;%s;%s)" % (r, a[2], a[0], a[1])
 
 
 class Planning(SheetCase):
     def test_every_reference_row(self):
         checked = 0
         for row in plan_rows():
-            r = self.put_counts(row["successes"], row["attempts"]) if row["what"] == "plan_ahead" else ""
+            r = self.put_counts(row["successes"], row["attempts"]) if row["what"].startswith("plan_ahead") else ""
             text = formula_of(row, r)
             self.formula("H1", text)
             self.assertEqual(self.value_of("H1"), row["value"],
                              "%s %s (%s)" % (text, row["quantity"], row["source"]))
             checked += 1
-        self.assertEqual(checked, 10 + 11 + 36 + 12 + 12 + 7)
+        self.assertEqual(checked, 10 + 11 + 36 + 12 + 12 + 7 + 4)
 
     def test_defaults_and_switches(self):
         # Published: Fleiss, Levin & Paik (2003), 686 per group; 726 with the
@@ -91,7 +93,7 @@ class Planning(SheetCase):
                      "=RATES.PLAN.WIDTH(0.5;-0.1)", '=RATES.PLAN.WIDTH(0.5;0.05;0.95;"normal")',
                      "=RATES.PLAN.POWER(0.1;0.2;;;2)", '=RATES.PLAN.POWER(0.1;0.2;;;"yes")',
                      "=RATES.PLAN.POWER(0.1;0.2;0.8;1)", "=RATES.PLAN.AHEAD(%s;1;1;0.95)" % r,
-                     "=RATES.PLAN.AHEAD(%s;1;2;0.95;0)" % r,
+                     "=RATES.PLAN.AHEAD(%s;1;2;0.95;;0)" % r, '=RATES.PLAN.AHEAD(%s;1;2;0.95;"lower")' % r,
                      # More failures than units, a fractional or negative record.
                      "=RATES.PLAN.MORE(0.99;0.95;10;11)", "=RATES.PLAN.MORE(0.99;0.95;10.5;0)",
                      "=RATES.PLAN.MORE(0.99;0.95;-1;0)",

@@ -313,7 +313,36 @@ def comparison_rows_large(w):
     comparison_rows(w, large=True)
 
 
-SECTIONS = ['posterior_rows', 'comparison_rows', 'comparison_rows_large']
+def claim_rows(w):
+    """One-sided credible bounds (kind "one-sided": each bound alone at 95 %,
+    the 5 % and 95 % quantiles) and P(rate_1 < rate_2), the better one for
+    defect counts (goal "low"), as a reference of its own: the finite sum of
+    Cook (2005) with the groups in the other order, or for c_million the
+    quadrature of f_1 (1 - F_2)."""
+    mpmath.mp.dps = 50
+    source = "mpmath " + mpmath.__version__ + " (50 digits; this file)"
+    for name, x, n, pa, pb in POST_CASES:
+        a, b = mpmath.mpf(pa) + x, mpmath.mpf(pb) + n - x
+        tag = "|%s|%s" % (fmt(pa), fmt(pb))
+        row(w, name, [x], [n], "post_onesided_low" + tag, float(mp_quantile(a, b, mpmath.mpf("0.05"))),
+            source + ": quantile at 0.05")
+        row(w, name, [x], [n], "post_onesided_high" + tag, float(mp_quantile(a, b, mpmath.mpf("0.95"))),
+            source + ": quantile at 0.95")
+    for name, x, n in COMPARE_CASES:
+        if len(x) >= 12:
+            continue
+        (a1, b1), (a2, b2) = [(mpmath.mpf(1) + xi, mpmath.mpf(1) + ni - xi) for xi, ni in zip(x[:2], n[:2])]
+        if name == "c_million":
+            lo, hi = mp_window(a1, b1, 20)
+            p = mpmath.quad(lambda t: mp_density(a1, b1, t) * (1 - mp_cdf(a2, b2, t)), [lo, a1 / (a1 + b1), hi])
+            how = source + ": quad of f_1 (1 - F_2), incomplete beta by continued fraction"
+        else:
+            p = mp_ahead_sum(a2, b2, a1, b1)
+            how = source + ": the finite sum of Cook (2005), P(rate_2 > rate_1)"
+        row(w, name, x, n, "post_aheadlow|1|1|1|2", float(p), how)
+
+
+SECTIONS = ['posterior_rows', 'comparison_rows', 'comparison_rows_large', 'claim_rows']
 
 
 if __name__ == "__main__":

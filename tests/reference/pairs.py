@@ -10,6 +10,9 @@ Sources:
   proportion_confint (wilson, beta, jeffreys, agresti_coull): one-rate
       intervals (statsmodels); Jeffreys with Brown, Cai & DasGupta's (2001)
       ends, lower 0 at x = 0 and upper 1 at x = n, as the engine documents.
+      One-sided bounds at 95 %: Wilson and Agresti-Coull as the ends of
+      proportion_confint at alpha 0.10 (each tail 0.05); Clopper-Pearson and
+      Jeffreys as scipy beta.ppf quantiles at 0.05 and 0.95.
   confint_proportions_2indep (newcomb, agresti-caffo, wald, compare="diff"):
       difference intervals (statsmodels), clipped to [-1, 1] as the engine
       documents. Its "score" method is wrong in 0.13.5 (checks.md), so the
@@ -17,13 +20,21 @@ Sources:
       implementation (restricted maximum likelihood by bisection of the
       likelihood's derivative, bounds by bisection), sharing no code or
       closed form with the engine.
-  chi2_contingency(correction=False) and fisher_exact on 2 x 2 tables:
-      pairwise p-values (scipy); multipletests (holm, simes-hochberg, fdr_bh,
-      bonferroni, sidak): adjusted p-values over the family (statsmodels).
+  chi2_contingency(correction=False) times (N - 1)/N, and fisher_exact on
+      2 x 2 tables: pairwise p-values (scipy; the "N - 1" chi-square is the
+      Miettinen-Nurminen score statistic at difference 0, checked here against
+      mn_score); multipletests (holm, simes-hochberg, fdr_bh, bonferroni,
+      sidak): adjusted p-values over the family (statsmodels).
+  fm_p (this file): Farrington & Manning (1990) margin tests in 50-digit
+      mpmath, the restricted estimate as the root of their cubic found by
+      mpmath.polyroots and checked at generation against restricted_mle
+      (bisection of the likelihood's derivative); equivalence as
+      Schuirmann's (1987) two one-sided tests.
 """
 import math
 import sys
 
+import mpmath
 import numpy as np
 import scipy
 import scipy.stats
@@ -40,7 +51,7 @@ ONE_CASES = [
     ("one_zero", 0, 12), ("one_all", 14, 14), ("one_single_pass", 1, 1), ("one_single_fail", 0, 1),
     ("one_mid", 37, 52), ("one_rare", 3, 40000), ("one_million", 999123, 1000000),
 ]
-ONE_METHODS = {"wilson": "wilson", "exact": "beta", "jeffreys": "jeffreys", "agresti_coull": "agresti_coull"}
+ONE_METHODS = {"wilson": "wilson", "clopper_pearson": "beta", "jeffreys": "jeffreys", "agresti_coull": "agresti_coull"}
 
 
 def one_rate_rows(w):
@@ -53,6 +64,28 @@ def one_rate_rows(w):
                 source += "; 0 at x = 0, 1 at x = n (Brown, Cai & DasGupta 2001)"
             row(w, name, [x], [n], "one_%s_low" % ours, low, source)
             row(w, name, [x], [n], "one_%s_high" % ours, high, source)
+
+
+def one_sided_rows(w):
+    """Each bound alone at 95 % (sides "one")."""
+    for name, x, n in ONE_CASES:
+        for ours, theirs in (("wilson", "wilson"), ("agresti_coull", "agresti_coull")):
+            low, high = proportion_confint(x, n, alpha=0.10, method=theirs)
+            source = STATSMODELS + ' proportion_confint(method="%s", alpha=0.10): each end a one-sided 95 %% bound' % theirs
+            row(w, name, [x], [n], "sided_%s_low" % ours, low, source)
+            row(w, name, [x], [n], "sided_%s_high" % ours, high, source)
+        # Clopper-Pearson: Beta(x, n - x + 1) and Beta(x + 1, n - x) quantiles;
+        # Jeffreys: Beta(x + 1/2, n - x + 1/2), 0 at x = 0 and 1 at x = n.
+        for ours, shift in (("clopper_pearson", None), ("jeffreys", 0.5)):
+            if shift is None:
+                low = 0.0 if x == 0 else scipy.stats.beta.ppf(0.05, x, n - x + 1)
+                high = 1.0 if x == n else scipy.stats.beta.ppf(0.95, x + 1, n - x)
+            else:
+                low = 0.0 if x == 0 else scipy.stats.beta.ppf(0.05, x + shift, n - x + shift)
+                high = 1.0 if x == n else scipy.stats.beta.ppf(0.95, x + shift, n - x + shift)
+            source = SCIPY + " beta.ppf at 0.05 and 0.95 (%s)" % ours.replace("_", "-")
+            row(w, name, [x], [n], "sided_%s_low" % ours, low, source)
+            row(w, name, [x], [n], "sided_%s_high" % ours, high, source)
 
 
 # Two-group cases: (name, x1, n1, x2, n2). Invented; 0 % against 100 %, both
@@ -109,13 +142,20 @@ def mn_interval(x1, n1, x2, n2, level=0.95):
 
 
 def pair_p_values(x1, n1, x2, n2):
-    """Score (Pearson) p, or None where scipy refuses (an expected count of 0), and Fisher's p."""
+    """Score p (Pearson's chi-square times (N - 1)/N), or None where scipy
+    refuses (an expected count of 0), and Fisher's p."""
     table = [[x1, n1 - x1], [x2, n2 - x2]]
+    big_n = n1 + n2
     try:
-        score = chi2_contingency(table, correction=False)[1]
+        statistic = chi2_contingency(table, correction=False)[0] * (big_n - 1) / big_n
+        score = scipy.stats.chi2.sf(statistic, 1)
+        # The same statistic as the Miettinen-Nurminen score at difference 0.
+        assert abs(statistic - mn_score(x1, n1, x2, n2, 0.0) ** 2) <= 1e-9 * max(1.0, statistic), (x1, n1, x2, n2)
     except ValueError:
         score = None
     return score, fisher_exact(table, alternative="two-sided")[1]
+
+SCORE_SOURCE = SCIPY + " chi2_contingency(correction=False) statistic times (N - 1)/N, chi2.sf"
 
 
 def pair_rows(w):
@@ -131,11 +171,19 @@ def pair_rows(w):
             row(w, name, x, n, "diff_%s_high" % ours, high, source)
         low, high = mn_interval(x1, n1, x2, n2)
         source = "mn_interval (this file: bisection, Miettinen & Nurminen 1985 with N/(N-1)); " + SCIPY + " norm.isf"
-        row(w, name, x, n, "diff_score_low", low, source)
-        row(w, name, x, n, "diff_score_high", high, source)
+        row(w, name, x, n, "diff_miettinen_nurminen_low", low, source)
+        row(w, name, x, n, "diff_miettinen_nurminen_high", high, source)
+        # One-sided 95 %: the ends of the two-sided 90 % interval.
+        low, high = mn_interval(x1, n1, x2, n2, level=0.90)
+        row(w, name, x, n, "diffsided_miettinen_nurminen_low", low, source + ", level 0.90: one-sided 95 % ends")
+        row(w, name, x, n, "diffsided_miettinen_nurminen_high", high, source + ", level 0.90: one-sided 95 % ends")
+        low, high = confint_proportions_2indep(x1, n1, x2, n2, method="newcomb", compare="diff", alpha=0.10)
+        source = STATSMODELS + ' confint_proportions_2indep(method="newcomb", compare="diff", alpha=0.10)'
+        row(w, name, x, n, "diffsided_newcombe_low", low, source + ": one-sided 95 % ends")
+        row(w, name, x, n, "diffsided_newcombe_high", high, source + ": one-sided 95 % ends")
         score, fisher = pair_p_values(x1, n1, x2, n2)
         if score is not None:
-            row(w, name, x, n, "pair_score_p", score, SCIPY + " chi2_contingency(correction=False)")
+            row(w, name, x, n, "pair_score_p", score, SCORE_SOURCE)
         row(w, name, x, n, "pair_exact_p", fisher, SCIPY + ' fisher_exact(alternative="two-sided")')
 
 
@@ -143,7 +191,7 @@ def pair_rows(w):
 # lots (invented).
 FAMILY = ("f_five_lines", [45, 171, 12, 30, 88], [50, 190, 12, 40, 100])
 TWENTY = ("f_twenty_lots", [40 + (7 * g) % 11 for g in range(20)], [50 + (3 * g) % 5 for g in range(20)])
-ADJUST = {"holm": "holm", "hochberg": "simes-hochberg", "bh": "fdr_bh", "bonferroni": "bonferroni",
+ADJUST = {"holm": "holm", "hochberg": "simes-hochberg", "benjamini-hochberg": "fdr_bh", "bonferroni": "bonferroni",
           "sidak": "sidak"}
 
 
@@ -159,8 +207,7 @@ def family_rows(w):
                 for (a, b), v in zip(members, adjusted):
                     row(w, name, x, n, "family_%s_%s_%s_%d_%d" % (test, ours, fam, a + 1, b + 1), v,
                         STATSMODELS + ' multipletests(method="%s") of %s' %
-                        (theirs, SCIPY + (" chi2_contingency(correction=False)" if test == "score"
-                                          else " fisher_exact")))
+                        (theirs, SCORE_SOURCE if test == "score" else SCIPY + " fisher_exact"))
 
 
 def twenty_rows(w):
@@ -170,10 +217,89 @@ def twenty_rows(w):
     raw = [pair_p_values(x[a], n[a], x[b], n[b])[0] for a, b in pairs]
     for (a, b), v in zip(pairs, multipletests(raw, method="holm")[1]):
         row(w, name, x, n, "family_score_holm_all_%d_%d" % (a + 1, b + 1), v,
-            STATSMODELS + ' multipletests(method="holm") of ' + SCIPY + " chi2_contingency(correction=False)")
+            STATSMODELS + ' multipletests(method="holm") of ' + SCORE_SOURCE)
 
 
-SECTIONS = ['one_rate_rows', 'pair_rows', 'family_rows', 'twenty_rows']
+# Margin cases: (name, x1, n1, x2, n2, margin, claim, goal). Invented: a new
+# supplier's lots against the old one's, two lines judged for equivalence,
+# defect counts (goal low), a perfect record, unequal sizes, margins of 0.
+MARGIN_CASES = [
+    ("m_supplier", 482, 500, 1431, 1500, 0.01, "not-worse", "high"),
+    ("m_supplier", 482, 500, 1431, 1500, 0.03, "not-worse", "high"),
+    ("m_supplier", 482, 500, 1431, 1500, 0.0, "better", "high"),
+    ("m_supplier_better", 497, 500, 1431, 1500, 0.005, "better", "high"),
+    ("m_lines", 930, 1000, 941, 1000, 0.02, "equivalent", "high"),
+    ("m_lines", 930, 1000, 941, 1000, 0.005, "equivalent", "high"),
+    ("m_defects", 7, 800, 12, 900, 0.01, "not-worse", "low"),
+    ("m_defects", 7, 800, 12, 900, 0.0, "better", "low"),
+    ("m_defects", 7, 800, 12, 900, 0.01, "equivalent", "low"),
+    ("m_perfect", 60, 60, 285, 300, 0.05, "not-worse", "high"),
+    ("m_none_failed", 0, 40, 3, 120, 0.02, "not-worse", "low"),
+    ("m_unequal", 11, 12, 36000, 40000, 0.10, "not-worse", "high"),
+    ("m_large", 99120, 100000, 99200, 100000, 0.002, "equivalent", "high"),
+    ("m_small", 3, 4, 2, 5, 0.2, "better", "high"),
+]
+
+
+def fm_restricted(x1, n1, x2, n2, delta):
+    """Farrington & Manning (1990) restricted estimate under p1 - p2 = delta:
+    the root of their cubic in [max(0, delta), min(1, 1 + delta)], by
+    mpmath.polyroots at 50 digits."""
+    mpmath.mp.dps = 50
+    x1, n1, x2, n2, delta = map(mpmath.mpf, (x1, n1, x2, n2, delta))
+    theta = n2 / n1
+    p1, p2 = x1 / n1, x2 / n2
+    a = 1 + theta
+    b = -(1 + theta + p1 + theta * p2 + delta * (theta + 2))
+    c = delta ** 2 + delta * (2 * p1 + theta + 1) + p1 + theta * p2
+    d = -p1 * delta * (1 + delta)
+    lo, hi = max(mpmath.mpf(0), delta), min(mpmath.mpf(1), 1 + delta)
+    roots = [r.real for r in mpmath.polyroots([a, b, c, d], maxsteps=200, extraprec=200)
+             if abs(r.imag) < mpmath.mpf(10) ** -30 and lo - mpmath.mpf(10) ** -30 <= r.real <= hi + mpmath.mpf(10) ** -30]
+
+    def loglik(q1):
+        q2 = q1 - delta
+        return sum(k * mpmath.log(q) for k, q in ((x1, q1), (n1 - x1, 1 - q1), (x2, q2), (n2 - x2, 1 - q2))
+                   if k != 0)
+    q1 = max(roots, key=lambda r: loglik(min(max(r, lo), hi)))
+    q1 = min(max(q1, lo), hi)
+    # Checked against a direct maximisation of the restricted likelihood.
+    b1, b2 = restricted_mle(int(x1), int(n1), int(x2), int(n2), float(delta))
+    assert abs(float(q1) - b1) < 1e-9 and abs(float(q1 - delta) - b2) < 1e-9, (x1, n1, x2, n2, delta, q1, b1)
+    return q1, q1 - delta
+
+
+def fm_upper_p(x1, n1, x2, n2, delta):
+    """P(Z >= z), z = (p1 - p2 - delta) / sqrt(restricted variance), no N/(N-1)."""
+    q1, q2 = fm_restricted(x1, n1, x2, n2, delta)
+    v = q1 * (1 - q1) / n1 + q2 * (1 - q2) / n2
+    num = mpmath.mpf(x1) / n1 - mpmath.mpf(x2) / n2 - delta
+    if v == 0:
+        return mpmath.mpf(0) if num > 0 else (mpmath.mpf(1) if num < 0 else mpmath.mpf("0.5"))
+    return mpmath.ncdf(-num / mpmath.sqrt(v))
+
+
+def fm_p(x1, n1, x2, n2, margin, claim, goal):
+    if goal == "low":  # defects: test the units without one
+        x1, x2 = n1 - x1, n2 - x2
+    if claim == "not-worse":
+        return fm_upper_p(x1, n1, x2, n2, -margin)
+    if claim == "better":
+        return fm_upper_p(x1, n1, x2, n2, margin)
+    # Schuirmann (1987): both one-sided tests; the upper one with the groups swapped.
+    return max(fm_upper_p(x1, n1, x2, n2, -margin), fm_upper_p(x2, n2, x1, n1, -margin))
+
+
+def margin_rows(w):
+    for name, x1, n1, x2, n2, margin, claim, goal in MARGIN_CASES:
+        value = fm_p(x1, n1, x2, n2, margin, claim, goal)
+        row(w, name, [x1, x2], [n1, n2], "margin_%s_%s_%s" % (claim, goal, repr(margin)), value,
+            "fm_p (this file: Farrington & Manning 1990 in mpmath %s at 50 digits, polyroots, checked against "
+            "restricted_mle)" % mpmath.__version__ + ("; Schuirmann 1987 two one-sided tests" if claim == "equivalent"
+                                                      else ""))
+
+
+SECTIONS = ['one_rate_rows', 'pair_rows', 'family_rows', 'twenty_rows', 'one_sided_rows', 'margin_rows']
 
 
 if __name__ == "__main__":

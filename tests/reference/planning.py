@@ -227,7 +227,30 @@ def ahead_plan_rows(w):
         row(w, "plan_ahead", [s1, s2], [n1, n2], "plan_ahead|%d|%d|%s" % (prior, prior, c), m, source)
 
 
-SECTIONS = ['demo_rows', 'more_rows', 'width_rows', 'power_rows', 'power_ratio_rows', 'ahead_plan_rows']
+# Goal "low": the counts are defects; further attempts are all free of the
+# defect, and the pilot must reach P(its defect rate < the other's).
+AHEAD_LOW_CASES = [  # (pilot defects, pilot attempts, other defects, other attempts, confidence, prior)
+    (0, 14, 14, 300, "0.95", 1), (1, 40, 30, 1000, "0.9", 1), (0, 0, 5, 100, "0.9", 1), (2, 50, 2, 50, "0.8", 1),
+]
+
+
+def ahead_low_rows(w):
+    mpmath.mp.dps = 50
+    source = ("mpmath " + mpmath.__version__ + " (50 digits): P(rate_1 < rate_2) by the finite sum of Cook (2005); "
+              "P checked at m and m - 1")
+    for d1, n1, d2, n2, c, prior in AHEAD_LOW_CASES:
+        conf = mpmath.mpf(c)
+        other = (mpmath.mpf(prior) + d2, mpmath.mpf(prior) + n2 - d2)
+        p = lambda m: mp_ahead_sum(other[0], other[1], mpmath.mpf(prior) + d1, mpmath.mpf(prior) + n1 - d1 + m)
+        m = 0
+        while p(m) < conf:  # the answers here are small: a direct walk
+            m += 1
+        assert p(m) >= conf and (m == 0 or p(m - 1) < conf)
+        row(w, "plan_ahead_low", [d1, d2], [n1, n2], "plan_aheadlow|%d|%d|%s" % (prior, prior, c), m, source)
+
+
+SECTIONS = ['demo_rows', 'more_rows', 'width_rows', 'power_rows', 'power_ratio_rows', 'ahead_plan_rows',
+            'ahead_low_rows']
 
 
 if __name__ == "__main__":

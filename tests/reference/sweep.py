@@ -68,7 +68,7 @@ from statsmodels.stats.multitest import multipletests
 from statsmodels.stats.proportion import confint_proportions_2indep, proportion_confint
 
 sys.path.insert(0, __file__.rsplit("/", 1)[0])
-from pairs import mn_interval, pair_p_values  # noqa: E402  (independent implementations)
+from pairs import SCORE_SOURCE, mn_interval, pair_p_values  # noqa: E402  (independent implementations)
 
 SCIPY = "scipy " + scipy.__version__
 STATSMODELS = "statsmodels " + statsmodels.__version__
@@ -325,8 +325,7 @@ def pairs_rows(w):
             adjusted = multipletests(raw, method=ADJUST[adjust])[1]
         a, b = pairs[case % len(pairs)]
         k = pairs.index((a, b))
-        out(w, "pairs", name, x, n, "pair_p|none|%d|%d" % (a + 1, b + 1), raw[k],
-            SCIPY + " chi2_contingency(correction=False)")
+        out(w, "pairs", name, x, n, "pair_p|none|%d|%d" % (a + 1, b + 1), raw[k], SCORE_SOURCE)
         out(w, "pairs", name, x, n, "pair_p|%s|%d|%d" % (adjust, a + 1, b + 1), adjusted[k],
             STATSMODELS + ' multipletests(method="%s") over all pairs' % ADJUST[adjust])
 

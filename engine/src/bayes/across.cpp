@@ -45,7 +45,8 @@ double loss(std::span<const beta_law> laws, std::size_t i, goal g, across_cache*
 
 std::vector<std::string> summary_header(double level) {
     const std::string pct = format_short(level * 100) + " %";
-    return {"group", "expected rate", "low (" + pct + ")", "high (" + pct + ")", "P(best)", "expected loss"};
+    return {"group", "expected rate", "credible low (" + pct + ")", "credible high (" + pct + ")", "P(best)",
+            "expected loss"};
 }
 
 std::vector<summary_row> summary(const counts& c, double level, goal g, prior p, across_cache* cache) {

@@ -108,7 +108,7 @@ double ahead(const beta_law& x, const beta_law& y) { return ahead_to(x, y, detai
 
 double ahead_absolute(const beta_law& x, const beta_law& y) { return ahead_to(x, y, detail::for_comparison); }
 
-std::vector<std::vector<double>> order(std::span<const beta_law> laws) {
+std::vector<std::vector<double>> order(std::span<const beta_law> laws, goal g) {
     const bool sums = std::all_of(laws.begin(), laws.end(), [](const beta_law& l) {
         return whole_and_small(l.a) && whole_and_small(l.b);
     });
@@ -120,7 +120,7 @@ std::vector<std::vector<double>> order(std::span<const beta_law> laws) {
     // its relative accuracy.
     for (std::size_t r = 0; r < laws.size(); ++r)
         for (std::size_t col = 0; col < laws.size(); ++col)
-            if (r != col) out[r][col] = ahead(laws[r], laws[col]);
+            if (r != col) out[r][col] = ahead(laws[r], laws[col], g);
     return out;
 }
 

@@ -83,6 +83,10 @@ double mean(const beta_law& law) { return law.a / (law.a + law.b); }
 interval credible(const beta_law& law, double level, kind how) {
     level = arguments::level(level, "level");
     if (how == kind::central) return {quantile(law, (1 - level) / 2), quantile(law, (1 + level) / 2)};
+    if (how == kind::one_sided) {  // each bound alone: P(rate >= low) = P(rate <= high) = level
+        arguments::interval_level(level, sides::one, "level");
+        return {quantile(law, 1 - level), quantile(law, level)};
+    }
     // The density falls from 0 (a <= 1) or rises to 1 (b <= 1): the shortest
     // interval starts at that end.
     if (law.a <= 1 && law.b > 1) return {0.0, quantile(law, level)};

@@ -41,6 +41,14 @@ double level(double value, const char* name) {
     return value;
 }
 
+double interval_level(double value, sides s, const char* name) {
+    level(value, name);
+    if (s == sides::two) return value;
+    if (!(value >= 0.5))
+        out_of_range(name, value, "be at least 0.5 when the bound is one-sided (sides \"one\"), for example 0.95");
+    return 2 * value - 1;  // exact for value in [0.5, 1] (Sterbenz)
+}
+
 double rate(double value, const char* name) {
     if (!(value >= 0 && value <= 1)) out_of_range(name, value, "lie between 0 and 1, a fraction such as 0.99 for 99 %");
     return value;

@@ -38,7 +38,7 @@ std::vector<double> adjusted(std::span<const double> p, p_values how) {
     std::stable_sort(order.begin(), order.end(), [&](std::size_t a, std::size_t b) { return p[a] < p[b]; });
     auto factor = [&](std::size_t rank) {  // rank 0 = smallest p
         const auto k = static_cast<double>(rank + 1);
-        return how == p_values::bh ? md / k : md - k + 1;
+        return how == p_values::benjamini_hochberg ? md / k : md - k + 1;
     };
     if (how == p_values::holm) {
         // Step-down: running maximum from the smallest p.

@@ -51,14 +51,14 @@ interval bounds_at(double xd, double nd, double level, method how) {
     switch (how) {
         case method::wilson: return wilson(xd, nd, two_sided_z(level));
         case method::agresti_coull: return agresti_coull(xd, nd, two_sided_z(level));
-        case method::exact: return boost_bounds(xd, nd, level, binomial::clopper_pearson_exact_interval);
+        case method::clopper_pearson: return boost_bounds(xd, nd, level, binomial::clopper_pearson_exact_interval);
         case method::jeffreys: return boost_bounds(xd, nd, level, binomial::jeffreys_prior_interval);
     }
     return {};
 }
 
-interval bounds(const group& g, double level, method how) {
-    return bounds(g.successes, g.attempts, arguments::level(level, "level"), how);
+interval bounds(const group& g, double level, method how, sides s) {
+    return bounds(g.successes, g.attempts, arguments::interval_level(level, s, "level"), how);
 }
 
 }  // namespace tallyrates::one_rate

@@ -9,6 +9,7 @@
 #include <numbers>
 
 #include "detail/hypergeometric.hpp"
+#include "restricted.hpp"
 #include "tallyrates/core/arguments.hpp"
 #include "tallyrates/core/errors.hpp"
 #include "tallyrates/core/rules.hpp"
@@ -18,20 +19,13 @@ namespace tallyrates::pairwise {
 
 namespace {
 
+using restricted::rates_of_two;
+using restricted::restricted_variance;
+using restricted::two;
+
 // Halvings of the score interval's bisection before it is a failure (Err:523);
 // 52 reach double precision.
 constexpr std::uintmax_t max_bisection_steps = 200;
-
-struct rates_of_two {
-    double x1, n1, x2, n2;
-    double p1() const { return x1 / n1; }
-    double p2() const { return x2 / n2; }
-};
-
-rates_of_two two(const group& a, const group& b) {
-    return {static_cast<double>(a.successes), static_cast<double>(a.attempts), static_cast<double>(b.successes),
-            static_cast<double>(b.attempts)};
-}
 
 interval clipped(double low, double high) { return {std::max(-1.0, low), std::min(1.0, high)}; }
 
@@ -49,33 +43,10 @@ interval wald_like(double p1, double n1, double p2, double n2, double z) {
     return clipped(p1 - p2 - half, p1 - p2 + half);
 }
 
-// Restricted maximum likelihood estimate of (p1, p2) under p1 - p2 = delta:
-// the root of Miettinen & Nurminen's cubic in the trigonometric closed form
-// of Farrington & Manning (1990), section 2.
-std::pair<double, double> restricted_mle(const rates_of_two& r, double delta) {
-    const double theta = r.n2 / r.n1;
-    const double p1 = r.p1(), p2 = r.p2();
-    const double a = 1 + theta;
-    const double b = -(1 + theta + p1 + theta * p2 + delta * (theta + 2));
-    const double c = delta * delta + delta * (2 * p1 + theta + 1) + p1 + theta * p2;
-    const double d = -p1 * delta * (1 + delta);
-    const double v = b * b * b / (27 * a * a * a) - b * c / (6 * a * a) + d / (2 * a);
-    const double u2 = b * b / (9 * a * a) - c / (3 * a);
-    double q1 = -b / (3 * a);
-    if (u2 > 0) {
-        const double u = std::copysign(std::sqrt(u2), v);
-        const double w = (std::numbers::pi + std::acos(std::clamp(v / (u * u * u), -1.0, 1.0))) / 3;
-        q1 += 2 * u * std::cos(w);
-    }
-    q1 = std::clamp(q1, std::max(0.0, delta), std::min(1.0, 1 + delta));
-    return {q1, q1 - delta};
-}
-
 // Miettinen-Nurminen score statistic at delta, decreasing in delta.
 double score_z(const rates_of_two& r, double delta) {
-    const auto [q1, q2] = restricted_mle(r, delta);
     const double big_n = r.n1 + r.n2;
-    const double variance = (q1 * (1 - q1) / r.n1 + q2 * (1 - q2) / r.n2) * big_n / (big_n - 1);
+    const double variance = restricted_variance(r, delta) * big_n / (big_n - 1);
     const double num = r.p1() - r.p2() - delta;
     if (!(variance > 0)) return num > 0 ? HUGE_VAL : (num < 0 ? -HUGE_VAL : 0.0);
     return num / std::sqrt(variance);
@@ -105,12 +76,11 @@ interval miettinen_nurminen(const rates_of_two& r, double z) {
     return {d <= -1 ? -1.0 : score_root(r, -1.0, d, z), d >= 1 ? 1.0 : score_root(r, d, 1.0, -z)};
 }
 
-double pearson_p(const rates_of_two& r) {
-    const double pooled = (r.x1 + r.x2) / (r.n1 + r.n2);
-    const double variance = pooled * (1 - pooled) * (1 / r.n1 + 1 / r.n2);
-    if (!(variance > 0)) return 1.0;  // every unit a success, or none: no difference to see
-    const double d = r.p1() - r.p2();
-    return boost::math::cdf(boost::math::complement(boost::math::chi_squared(1.0), d * d / variance));
+// The score test the default interval inverts: the statistic at difference 0
+// (0 when every unit is a success, or none: no difference to see).
+double score_p(const rates_of_two& r) {
+    const double z = score_z(r, 0.0);
+    return boost::math::cdf(boost::math::complement(boost::math::chi_squared(1.0), z * z));
 }
 
 // Largest hypergeometric standard deviation the exact pair test enumerates
@@ -172,7 +142,7 @@ interval difference_interval(const group& a, const group& b, double level, inter
     const auto r = two(a, b);
     switch (how) {
         case interval_method::newcombe: return newcombe(r, level);
-        case interval_method::score: return miettinen_nurminen(r, one_rate::two_sided_z(level));
+        case interval_method::miettinen_nurminen: return miettinen_nurminen(r, one_rate::two_sided_z(level));
         case interval_method::agresti_caffo:
             return wald_like((r.x1 + 1) / (r.n1 + 2), r.n1 + 2, (r.x2 + 1) / (r.n2 + 2), r.n2 + 2,
                              one_rate::two_sided_z(level));
@@ -182,7 +152,7 @@ interval difference_interval(const group& a, const group& b, double level, inter
 }
 
 double same_rate_p(const group& a, const group& b, test_method how) {
-    return how == test_method::exact ? fisher_p(a, b) : pearson_p(two(a, b));
+    return how == test_method::exact ? fisher_p(a, b) : score_p(two(a, b));
 }
 
 std::size_t family_size(const counts& c, family f) {
@@ -193,10 +163,14 @@ std::size_t family_size(const counts& c, family f) {
 
 namespace {
 
-// The level of each comparison of the family (checked once for a table).
+// The level of the two-sided interval each comparison of the family needs
+// (checked once for a table): the per-comparison level of the adjustment,
+// then the sides asked (a one-sided bound at L is the end of the two-sided
+// interval at 2 L - 1).
 double level_each(const counts& c, const interval_options& o) {
-    const double level = arguments::level(o.level, "level");
-    return adjust::per_comparison_level(level, family_size(c, o.comparisons), o.adjust);
+    arguments::interval_level(o.level, o.side, "level");
+    const double each = adjust::per_comparison_level(o.level, family_size(c, o.comparisons), o.adjust);
+    return o.side == sides::two ? each : 2 * each - 1;
 }
 
 }  // namespace
@@ -277,7 +251,7 @@ std::vector<pair_row> pairs_table(const counts& c, const table_options& o, p_cac
     if (groups.size() < 2)
         throw invalid_input("At least two groups with attempts are needed to compare pairs; " +
                             std::to_string(groups.size()) + (groups.size() == 1 ? " has" : " have") + " any.");
-    const interval_options io{o.level, o.how, o.intervals, family::all};
+    const interval_options io{o.level, o.how, o.intervals, family::all, sides::two};
     // The p-values of the family "all", adjusted once: the same vectors the
     // single-cell RATES.PAIR.P takes its value from (same_rate_p above).
     const auto raw = all_pairs_p(c, test_method::score, cache);
@@ -289,10 +263,23 @@ std::vector<pair_row> pairs_table(const counts& c, const table_options& o, p_cac
     std::vector<pair_row> rows;
     for (std::size_t k = 0; k < pairs.size(); ++k) {
         const auto [a, b] = pairs[k];
-        rows.push_back({a->position, b->position, difference(*a, *b), difference_interval(*a, *b, each, io.how), raw[k],
-                        adjusted[k]});
+        pair_row row{a->position, b->position, difference(*a, *b), difference_interval(*a, *b, each, io.how), raw[k],
+                     adjusted[k]};
+        const bool clear = row.p_adjusted < 1 - o.level;
+        row.called = clear && row.bounds.low > 0 ? 1 : (clear && row.bounds.high < 0 ? -1 : 0);
+        rows.push_back(row);
     }
     return rows;
+}
+
+std::string verdict(const counts& c, const pair_row& row, goal better) {
+    if (row.called == 0) return "no clear difference";
+    // The group with the higher rate, or for defect counts the lower one.
+    const bool first = (row.called > 0) == (better == goal::high);
+    const std::size_t pos = first ? row.i : row.j;
+    const std::string label = c.label_of(pos);
+    const std::string name = label.empty() ? "group " + std::to_string(pos) : label;
+    return name + (better == goal::high ? " higher" : " fewer defects");
 }
 
 namespace {
@@ -308,13 +295,22 @@ std::string level_words(double level, adjust::simultaneous joint) {
 
 std::vector<std::string> pairs_header(const table_options& o, std::size_t pairs, std::string_view adjust_word) {
     const std::string level = level_words(o.level, o.intervals);
+    const std::string pct = format_short(o.level * 100) + " %";
+    std::string rule;
+    if (o.intervals != adjust::simultaneous::none)
+        rule = "all pairs together, " + pct;
+    else if (o.p != adjust::p_values::none)
+        rule = std::string(adjust_word) + " p below " + format_short(1 - o.level) + ", interval clear of 0";
+    else
+        rule = "each pair alone, " + pct;
     return {"group i (" + count_of(pairs, "pair", "pairs") + ", " + std::to_string(pairs + 1) + " rows)",
             "group j",
             "rate i - rate j",
-            "low (" + level + ")",
-            "high (" + level + ")",
+            "confidence low (" + level + ")",
+            "confidence high (" + level + ")",
             "p (score test)",
-            "p adjusted (" + std::string(adjust_word) + ")"};
+            "p adjusted (" + std::string(adjust_word) + ")",
+            "verdict (" + rule + ")"};
 }
 
 }  // namespace tallyrates::pairwise

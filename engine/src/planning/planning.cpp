@@ -279,7 +279,9 @@ std::int64_t power(double rate_1, double rate_2, double power, double alpha, cor
 
 // ---- how long a pilot must keep succeeding ----
 
-std::int64_t ahead(const bayes::beta_law& pilot, const bayes::beta_law& other, double confidence) {
+std::int64_t ahead(const bayes::beta_law& pilot_law, const bayes::beta_law& other_law, double confidence, goal g) {
+    const auto pilot = g == goal::high ? pilot_law : bayes::mirrored(pilot_law);
+    const auto other = g == goal::high ? other_law : bayes::mirrored(other_law);
     if (confidence == 1)
         throw unreachable_target("No run of successes makes the pilot ahead with certainty: use a confidence "
                                  "below 1, such as 0.95.");

@@ -43,12 +43,16 @@ TEST(Posterior, ReferenceRows) {
         const auto f = fields(r.quantity);
         const std::string& what = f[0];
         if (what == "post_ahead" || what == "post_best" || what == "post_loss" || what == "post_same" ||
-            what == "post_diff_low" || what == "post_diff_high")
+            what == "post_diff_low" || what == "post_diff_high" || what == "post_aheadlow")
             continue;  // comparisons of groups: Compare.ReferenceRows
         const auto law = law_of(r, f);
         if (what == "post_mean") expect_close(bayes::mean(law), r.value, r);
         else if (what == "post_central_low") expect_close(bayes::credible(law, 0.95, bayes::kind::central).low, r.value, r);
         else if (what == "post_central_high") expect_close(bayes::credible(law, 0.95, bayes::kind::central).high, r.value, r);
+        else if (what == "post_onesided_low")
+            expect_close(bayes::credible(law, 0.95, bayes::kind::one_sided).low, r.value, r);
+        else if (what == "post_onesided_high")
+            expect_close(bayes::credible(law, 0.95, bayes::kind::one_sided).high, r.value, r);
         else if (what == "post_hpd_low") expect_close(bayes::credible(law, 0.95, bayes::kind::hpd).low, r.value, r);
         else if (what == "post_hpd_high") expect_close(bayes::credible(law, 0.95, bayes::kind::hpd).high, r.value, r);
         else if (what == "post_above") expect_close(bayes::above(law, std::stod(f[3]), bayes::goal::high), r.value, r);
@@ -64,6 +68,7 @@ TEST(Posterior, ReferenceRows) {
     }
     EXPECT_EQ(checked["post_mean"], 7);
     EXPECT_EQ(checked["post_hpd_low"], 7);
+    EXPECT_EQ(checked["post_onesided_low"] + checked["post_onesided_high"], 2 * 7);
     EXPECT_EQ(checked["post_above"], 11);
     EXPECT_EQ(checked["post_next"], 8);
     EXPECT_GE(checked["post_density"], 35);
@@ -127,7 +132,7 @@ TEST(Compare, ReferenceRows) {
         const auto f = fields(r.quantity);
         const std::string& what = f[0];
         if (what != "post_ahead" && what != "post_best" && what != "post_loss" && what != "post_same" &&
-            what != "post_diff_low" && what != "post_diff_high")
+            what != "post_diff_low" && what != "post_diff_high" && what != "post_aheadlow")
             continue;
         SCOPED_TRACE(r.name + " " + r.quantity);
         const auto c = counts::from_values(r.successes, r.attempts);
@@ -135,6 +140,11 @@ TEST(Compare, ReferenceRows) {
         const auto laws = bayes::posteriors(c, p);
         double got = 0;
         if (what == "post_ahead") got = bayes::ahead(laws[std::stoul(f[3]) - 1], laws[std::stoul(f[4]) - 1]);
+        if (what == "post_aheadlow") {
+            got = bayes::ahead(laws[std::stoul(f[3]) - 1], laws[std::stoul(f[4]) - 1], goal::low);
+            // ORDER with goal low holds the same value in row i, column j.
+            EXPECT_EQ(bayes::order(laws, goal::low)[std::stoul(f[3]) - 1][std::stoul(f[4]) - 1], got);
+        }
         if (what == "post_best") got = bayes::best(laws, std::stoul(f[3]) - 1, bayes::goal::high);
         if (what == "post_loss") got = bayes::loss(laws, std::stoul(f[3]) - 1, bayes::goal::high);
         if (what == "post_diff_low" || what == "post_diff_high") {
@@ -153,6 +163,7 @@ TEST(Compare, ReferenceRows) {
         ++checked[what];
     }
     EXPECT_EQ(checked["post_ahead"], 10);
+    EXPECT_EQ(checked["post_aheadlow"], 6);
     EXPECT_EQ(checked["post_best"], 19);
     EXPECT_EQ(checked["post_loss"], 19);
     EXPECT_EQ(checked["post_same"], 16);

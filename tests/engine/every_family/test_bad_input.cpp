@@ -52,7 +52,7 @@ TEST(BadInput, EveryEntryPointWithValidCountsAndBadArguments) {
             pairwise::interval_options level;
             level.level = bad;
             EXPECT_THROW(cell::difference_interval(c, 1, 2, level), invalid_input) << bad;
-            EXPECT_THROW(cell::one_bounds(c, 1, bad, one_rate::method::exact), invalid_input) << bad;
+            EXPECT_THROW(cell::one_bounds(c, 1, bad, one_rate::method::clopper_pearson), invalid_input) << bad;
         }
         std::vector<entry> scores = col({1, 2, 3});
         scores[0] = entry::number(bad);
@@ -100,14 +100,14 @@ TEST(BadInput, ResultsAreFiniteForEveryMethodOnAwkwardTables) {
         EXPECT_NO_THROW(check_text(col({}), col({})));
         // The pairs family on the same extremes: finite, inside [-1, 1] / [0, 1],
         // or a refusal of the exact test's enumeration.
-        for (auto how : {pairwise::interval_method::newcombe, pairwise::interval_method::score,
+        for (auto how : {pairwise::interval_method::newcombe, pairwise::interval_method::miettinen_nurminen,
                          pairwise::interval_method::agresti_caffo, pairwise::interval_method::wald}) {
             pairwise::interval_options o;
             o.how = how;
             const auto ci = cell::difference_interval(c, 1, 2, o);
             EXPECT_TRUE(ci.low >= -1 && ci.low <= ci.high && ci.high <= 1) << ci.low << " " << ci.high;
         }
-        for (auto how : {one_rate::method::wilson, one_rate::method::exact, one_rate::method::jeffreys,
+        for (auto how : {one_rate::method::wilson, one_rate::method::clopper_pearson, one_rate::method::jeffreys,
                          one_rate::method::agresti_coull}) {
             const auto b = cell::one_bounds(c, 2, 0.95, how);
             EXPECT_TRUE(b.low >= 0 && b.low <= b.high && b.high <= 1);

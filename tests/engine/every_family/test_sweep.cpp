@@ -75,14 +75,14 @@ void expect_probability(double got, double want, const sweep_row& r) {
 bayes::goal goal_of(const std::string& s) { return s == "low" ? bayes::goal::low : bayes::goal::high; }
 
 one_rate::method one_method(const std::string& s) {
-    if (s == "clopper-pearson") return one_rate::method::exact;
+    if (s == "clopper-pearson") return one_rate::method::clopper_pearson;
     if (s == "jeffreys") return one_rate::method::jeffreys;
     if (s == "agresti-coull") return one_rate::method::agresti_coull;
     return one_rate::method::wilson;
 }
 
 pairwise::interval_method diff_method(const std::string& s) {
-    if (s == "miettinen-nurminen") return pairwise::interval_method::score;
+    if (s == "miettinen-nurminen") return pairwise::interval_method::miettinen_nurminen;
     if (s == "agresti-caffo") return pairwise::interval_method::agresti_caffo;
     if (s == "wald") return pairwise::interval_method::wald;
     return pairwise::interval_method::newcombe;
@@ -91,7 +91,7 @@ pairwise::interval_method diff_method(const std::string& s) {
 adjust::p_values adjust_of(const std::string& s) {
     if (s == "holm") return adjust::p_values::holm;
     if (s == "hochberg") return adjust::p_values::hochberg;
-    if (s == "benjamini-hochberg") return adjust::p_values::bh;
+    if (s == "benjamini-hochberg") return adjust::p_values::benjamini_hochberg;
     if (s == "bonferroni") return adjust::p_values::bonferroni;
     if (s == "sidak") return adjust::p_values::sidak;
     return adjust::p_values::none;
@@ -169,6 +169,7 @@ TEST(Sweep, PairsAgainstStatsmodelsAndScipy) {
             pairwise::interval_options o;
             o.level = std::stod(f[4]);
             o.how = diff_method(f[1]);
+            o.adjust = adjust::simultaneous::none;
             const auto b = cell::difference_interval(c, std::stod(f[2]), std::stod(f[3]), o);
             // The Miettinen-Nurminen reference is a bisection inside a
             // bisection (pairs.py), settled to about 1e-8.
@@ -176,6 +177,7 @@ TEST(Sweep, PairsAgainstStatsmodelsAndScipy) {
         } else if (what == "diff_low_family" || what == "diff_high_family") {
             pairwise::interval_options o;
             o.level = std::stod(f[5]);
+            o.how = pairwise::interval_method::newcombe;
             o.adjust = f[1] == "sidak" ? adjust::simultaneous::sidak : adjust::simultaneous::bonferroni;
             o.comparisons = f[2] == "against" ? pairwise::family::against : pairwise::family::all;
             const auto b = cell::difference_interval(c, std::stod(f[3]), std::stod(f[4]), o);
@@ -343,7 +345,7 @@ TEST(Sweep, PairAndOneRateInvariants) {
         const std::vector<std::int64_t> x{d.successes(n1), d.successes(n2)}, n{n1, n2};
         const auto c = counts::from_values(x, n);
         const double level = 0.5 + 0.4999 * d.uniform();
-        for (const auto m : {one_rate::method::wilson, one_rate::method::exact, one_rate::method::jeffreys,
+        for (const auto m : {one_rate::method::wilson, one_rate::method::clopper_pearson, one_rate::method::jeffreys,
                              one_rate::method::agresti_coull}) {
             const auto b = cell::one_bounds(c, 1, level, m);
             const double rate = static_cast<double>(x[0]) / static_cast<double>(n1);
@@ -357,7 +359,7 @@ TEST(Sweep, PairAndOneRateInvariants) {
         }
         pairwise::interval_options o;
         o.level = level;
-        for (const auto m : {pairwise::interval_method::newcombe, pairwise::interval_method::score,
+        for (const auto m : {pairwise::interval_method::newcombe, pairwise::interval_method::miettinen_nurminen,
                              pairwise::interval_method::agresti_caffo, pairwise::interval_method::wald}) {
             o.how = m;
             const auto b = cell::difference_interval(c, 1, 2, o);

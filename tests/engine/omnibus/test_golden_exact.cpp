@@ -54,10 +54,15 @@ std::vector<exact_case> cases() {
                           tallyrates::testing::unequal_twelve("unequal_240_mid", 240, 0.35, 0.65)})
         add(u.name, u.x, u.n);
     // In the golden file's order, so that it does not depend on how the
-    // reference tables are split; a new case goes last.
+    // reference tables are split. A table added to the reference files
+    // later has no value from the enumeration before the merge: it is left
+    // out (the exact route's checks against rational enumeration cover it),
+    // unless the file is being written.
     std::map<std::string, std::size_t> place;
     for (const auto& line : tallyrates::testing::read_lines(TALLYRATES_GOLDEN_EXACT_FILE))
         place.emplace(line.substr(0, line.find(' ')), place.size());
+    if (!std::getenv("TALLYRATES_GOLDEN_WRITE"))
+        std::erase_if(out, [&](const exact_case& c) { return !place.contains(c.name); });
     std::stable_sort(out.begin(), out.end(), [&](const exact_case& a, const exact_case& b) {
         const auto pa = place.find(a.name), pb = place.find(b.name);
         return (pa == place.end() ? place.size() : pa->second) < (pb == place.end() ? place.size() : pb->second);

@@ -42,12 +42,12 @@ void expect_4dp(double got, double published, const char* what) {
 }
 
 const std::map<std::string, one_rate::method> one_methods{{"wilson", one_rate::method::wilson},
-                                                          {"exact", one_rate::method::exact},
+                                                          {"clopper_pearson", one_rate::method::clopper_pearson},
                                                           {"jeffreys", one_rate::method::jeffreys},
                                                           {"agresti_coull", one_rate::method::agresti_coull}};
 const std::map<std::string, pairwise::interval_method> diff_methods{
     {"newcombe", pairwise::interval_method::newcombe},
-    {"score", pairwise::interval_method::score},
+    {"miettinen_nurminen", pairwise::interval_method::miettinen_nurminen},
     {"agresti_caffo", pairwise::interval_method::agresti_caffo},
     {"wald", pairwise::interval_method::wald}};
 
@@ -68,8 +68,8 @@ TEST(OneRate, NewcombePublishedExamples) {
         double low, high;
         const char* mark;
     };
-    const example examples[] = {{81, 263, m::wilson, 0.2553, 0.3662, "[S]"}, {81, 263, m::exact, 0.2527, 0.3676, "[M]"},
-                                {0, 20, m::wilson, 0.0, 0.1611, "[M]"},      {0, 20, m::exact, 0.0, 0.1684, "[M]"},
+    const example examples[] = {{81, 263, m::wilson, 0.2553, 0.3662, "[S]"}, {81, 263, m::clopper_pearson, 0.2527, 0.3676, "[M]"},
+                                {0, 20, m::wilson, 0.0, 0.1611, "[M]"},      {0, 20, m::clopper_pearson, 0.0, 0.1684, "[M]"},
                                 {1, 29, m::wilson, 0.0061, 0.1718, "[M]"},   {15, 148, m::wilson, 0.0624, 0.1605, "[M]"}};
     for (const auto& e : examples) {
         const auto b = one_rate::bounds(e.x, e.n, 0.95, e.how);
@@ -107,6 +107,36 @@ TEST(OneRate, EndsAreExact) {
     }
 }
 
+TEST(OneRate, OneSidedReferenceRows) {
+    // sided_<method>_<end>: each bound alone at 95 % (scipy beta.ppf for
+    // Clopper-Pearson and Jeffreys, statsmodels proportion_confint at alpha
+    // 0.10 for Wilson and Agresti-Coull; pairs.py).
+    std::size_t checked = 0;
+    for (const auto& r : reference_rows("pairs.csv", "sided_")) {
+        const auto [name, low] = method_and_end(r.quantity, 6);
+        const auto b = one_rate::bounds(g(r.successes[0], r.attempts[0]), 0.95, one_methods.at(name), sides::one);
+        EXPECT_NEAR(low ? b.low : b.high, r.value, 1e-12 + 1e-10 * std::fabs(r.value))
+            << r.name << " " << r.quantity << " " << r.source;
+        ++checked;
+    }
+    EXPECT_EQ(checked, 7u * 4 * 2);
+}
+
+TEST(OneRate, OneSidedLevelIsAtLeastOneHalf) {
+    // A one-sided bound below 50 % would lie on the far side of the
+    // estimate; at 50 % (the median claim of reliability demonstrations) a
+    // Clopper-Pearson bound is the Beta median (scipy beta.ppf(0.5, 14, 1) =
+    // 0.5^(1/14) for 14 of 14).
+    EXPECT_THROW(one_rate::bounds(g(5, 10), 0.49, one_rate::method::wilson, sides::one), invalid_input);
+    EXPECT_NEAR(one_rate::bounds(g(14, 14), 0.5, one_rate::method::clopper_pearson, sides::one).low,
+                std::pow(0.5, 1.0 / 14), 1e-14);
+    const auto median = one_rate::bounds(g(5, 10), 0.5, one_rate::method::wilson, sides::one);
+    EXPECT_NEAR(median.low, 0.5, 1e-15);  // z = 0: both ends at the estimate
+    EXPECT_NEAR(median.high, 0.5, 1e-15);
+    TALLYRATES_EXPECT_THROW_SAYING(one_rate::bounds(g(5, 10), 0.3, one_rate::method::wilson, sides::one),
+                                   invalid_input, "at least 0.5");
+}
+
 TEST(Difference, NewcombeTableTwoHybridScore) {
     // Newcombe 1998b Table II, method 10, 95 % [S] (checks.md).
     struct example {
@@ -133,10 +163,10 @@ TEST(Difference, NewcombeTableTwoOtherMethods) {
         expect_4dp(ci.high, high, what);
     };
     check(g(56, 70), g(48, 80, 2), m::wald, 0.0575, 0.3425, "(a) Wald");
-    check(g(56, 70), g(48, 80, 2), m::score, 0.0528, 0.3382, "(a) Miettinen-Nurminen");
+    check(g(56, 70), g(48, 80, 2), m::miettinen_nurminen, 0.0528, 0.3382, "(a) Miettinen-Nurminen");
     check(g(56, 70), g(48, 80, 2), m::agresti_caffo, 0.0525, 0.3358, "(a) Agresti-Caffo");
     check(g(9, 10), g(3, 10, 2), m::wald, 0.2605, 0.9395, "(b) Wald");
-    check(g(9, 10), g(3, 10, 2), m::score, 0.1700, 0.8406, "(b) Miettinen-Nurminen");
+    check(g(9, 10), g(3, 10, 2), m::miettinen_nurminen, 0.1700, 0.8406, "(b) Miettinen-Nurminen");
     check(g(9, 10), g(3, 10, 2), m::agresti_caffo, 0.1600, 0.8400, "(b) Agresti-Caffo");
 }
 
@@ -147,11 +177,31 @@ TEST(Difference, ReferenceRows) {
         const auto ci = pairwise::difference_interval(g(r.successes[0], r.attempts[0]),
                                                       g(r.successes[1], r.attempts[1], 2), 0.95, diff_methods.at(name));
         // The score bounds are roots found by search on both sides: 1e-9.
-        const double tol = name == "score" ? 1e-9 : 1e-12 + 1e-10 * std::fabs(r.value);
+        const double tol = name == "miettinen_nurminen" ? 1e-9 : 1e-12 + 1e-10 * std::fabs(r.value);
         EXPECT_NEAR(low ? ci.low : ci.high, r.value, tol) << r.name << " " << r.quantity << " " << r.source;
         ++checked;
     }
     EXPECT_EQ(checked, 8u * 4 * 2);
+}
+
+TEST(Difference, OneSidedReferenceRows) {
+    // diffsided_<method>_<end>: the ends of the two-sided 90 % interval,
+    // each a one-sided 95 % bound (mn_interval in pairs.py; statsmodels
+    // confint_proportions_2indep at alpha 0.10 for Newcombe).
+    std::size_t checked = 0;
+    for (const auto& r : reference_rows("pairs.csv", "diffsided_")) {
+        const auto [name, low] = method_and_end(r.quantity, 10);
+        const auto c = counts::from_values(r.successes, r.attempts);
+        pairwise::interval_options o;
+        o.how = diff_methods.at(name);
+        o.adjust = adjust::simultaneous::none;
+        o.side = sides::one;
+        const auto ci = cell::difference_interval(c, 1, 2, o);
+        const double tol = name == "miettinen_nurminen" ? 1e-9 : 1e-12 + 1e-10 * std::fabs(r.value);
+        EXPECT_NEAR(low ? ci.low : ci.high, r.value, tol) << r.name << " " << r.quantity << " " << r.source;
+        ++checked;
+    }
+    EXPECT_EQ(checked, 8u * 2 * 2);
 }
 
 TEST(Difference, IntervalsStayInsideMinusOneToOneAndHoldTheEstimate) {
@@ -215,7 +265,7 @@ TEST(Adjust, BenjaminiHochbergSectionFour) {
         for (double v : adjust::adjusted(p, how)) k += v <= 0.05;
         return k;
     };
-    EXPECT_EQ(rejected(adjust::p_values::bh), 4);
+    EXPECT_EQ(rejected(adjust::p_values::benjamini_hochberg), 4);
     EXPECT_EQ(rejected(adjust::p_values::bonferroni), 3);
 }
 
@@ -224,7 +274,7 @@ TEST(Adjust, FamilyReferenceRows) {
     // over scipy's pairwise p-values of a five-line tally.
     const std::map<std::string, adjust::p_values> words{{"holm", adjust::p_values::holm},
                                                         {"hochberg", adjust::p_values::hochberg},
-                                                        {"bh", adjust::p_values::bh},
+                                                        {"benjamini-hochberg", adjust::p_values::benjamini_hochberg},
                                                         {"bonferroni", adjust::p_values::bonferroni},
                                                         {"sidak", adjust::p_values::sidak}};
     std::size_t checked = 0;
@@ -260,7 +310,7 @@ TEST(Adjust, MonotoneAndCapped) {
     // Common practice, no source: an adjusted p is at least the raw one, at
     // most 1, and keeps the order of the raw values.
     const std::vector<double> p{0.3, 0.001, 0.04, 0.04, 0.9, 0.0002, 0.5};
-    for (auto how : {adjust::p_values::holm, adjust::p_values::hochberg, adjust::p_values::bh,
+    for (auto how : {adjust::p_values::holm, adjust::p_values::hochberg, adjust::p_values::benjamini_hochberg,
                      adjust::p_values::bonferroni, adjust::p_values::sidak}) {
         const auto a = adjust::adjusted(p, how);
         for (std::size_t k = 0; k < p.size(); ++k) {
@@ -282,6 +332,7 @@ TEST(Adjust, SimultaneousLevels) {
     // Simultaneous intervals over the family are wider than single ones.
     const auto c = tally({45, 171, 12, 30}, {50, 190, 12, 40});
     pairwise::interval_options single, joint;
+    single.adjust = adjust::simultaneous::none;
     joint.adjust = adjust::simultaneous::bonferroni;
     const auto a = cell::difference_interval(c, 1, 2, single);
     const auto b = cell::difference_interval(c, 1, 2, joint);
@@ -342,7 +393,7 @@ TEST(Pairs, TableAgreesWithTheSingleCellsToTheLastBit) {
         std::vector{entry::number(50), entry::blank(), entry::number(190), entry::number(0), entry::number(12),
                     entry::number(40)});
     pairwise::table_options o;
-    o.how = pairwise::interval_method::score;
+    o.how = pairwise::interval_method::miettinen_nurminen;
     o.intervals = adjust::simultaneous::sidak;
     o.p = adjust::p_values::hochberg;
     pairwise::p_cache cache(4);
@@ -359,7 +410,9 @@ TEST(Pairs, TableAgreesWithTheSingleCellsToTheLastBit) {
         EXPECT_EQ(r.bounds.low, ci.low);
         EXPECT_EQ(r.bounds.high, ci.high);
         EXPECT_EQ(r.difference, cell::difference(c, i, j));
-        EXPECT_EQ(r.p, cell::same_rate_p(c, i, j, pairwise::test_options{}));
+        pairwise::test_options raw;
+        raw.adjust = adjust::p_values::none;
+        EXPECT_EQ(r.p, cell::same_rate_p(c, i, j, raw));
         pairwise::test_options t;
         t.adjust = o.p;
         EXPECT_EQ(r.p_adjusted, cell::same_rate_p(c, i, j, t));

@@ -27,7 +27,7 @@ namespace cell = tallyrates::testing::cell;
 
 one_rate::method method_of(const std::string& name) {
     if (name == "wilson") return one_rate::method::wilson;
-    if (name == "exact") return one_rate::method::exact;
+    if (name == "clopper_pearson") return one_rate::method::clopper_pearson;
     if (name == "jeffreys") return one_rate::method::jeffreys;
     return one_rate::method::agresti_coull;
 }
@@ -106,6 +106,12 @@ TEST(Planning, ReferenceRows) {
             const auto c = counts::from_values(r.successes, r.attempts);
             EXPECT_EQ(planning::ahead(cell::posterior(c, 1, p), cell::posterior(c, 2, p), std::stod(f[3])), want)
                 << r.name << " " << r.quantity << " " << r.source;
+        } else if (what == "plan_aheadlow") {  // defect counts: further attempts free of the defect
+            const bayes::prior p{std::stod(f[1]), std::stod(f[2])};
+            const auto c = counts::from_values(r.successes, r.attempts);
+            EXPECT_EQ(planning::ahead(cell::posterior(c, 1, p), cell::posterior(c, 2, p), std::stod(f[3]), goal::low),
+                      want)
+                << r.name << " " << r.quantity << " " << r.source;
         } else {
             ADD_FAILURE() << "unknown quantity " << r.quantity;
         }
@@ -118,6 +124,7 @@ TEST(Planning, ReferenceRows) {
     EXPECT_EQ(checked["plan_power_pooled"], 5);
     EXPECT_EQ(checked["plan_power_ratio"], 12);
     EXPECT_EQ(checked["plan_ahead"], 7);
+    EXPECT_EQ(checked["plan_aheadlow"], 4);
 }
 
 // The answer is the smallest n: it meets the target and n - 1 does not
@@ -137,7 +144,7 @@ TEST(Planning, PowerAnswerIsSmallest) {
 // where a few larger n miss it again (common practice, no source: seen in
 // the statsmodels search of planning.py).
 TEST(Planning, WidthIsFirstMeetingN) {
-    for (auto how : {one_rate::method::wilson, one_rate::method::exact, one_rate::method::jeffreys,
+    for (auto how : {one_rate::method::wilson, one_rate::method::clopper_pearson, one_rate::method::jeffreys,
                      one_rate::method::agresti_coull})
         for (double rate : {0.03, 0.5, 0.93}) {
             const auto n = planning::width(rate, 0.04, 0.95, how);
@@ -152,7 +159,7 @@ TEST(Planning, UnreachableTargetsAreRefusedQuickly) {
     EXPECT_THROW(planning::demonstration(1.0, 0.95, 2), unreachable_target);
     EXPECT_THROW(planning::demonstration(1 - 1e-12, 0.95, 0), unreachable_target);  // above 10^9
     EXPECT_THROW(planning::width(0.5, 0.0, 0.95, one_rate::method::wilson), unreachable_target);
-    EXPECT_THROW(planning::width(0.5, 1e-6, 0.95, one_rate::method::exact), unreachable_target);
+    EXPECT_THROW(planning::width(0.5, 1e-6, 0.95, one_rate::method::clopper_pearson), unreachable_target);
     EXPECT_THROW(planning::power(0.1, 0.15, 1.0, 0.05, planning::correction::none), unreachable_target);
     EXPECT_THROW(planning::power(0.1, 0.1, 0.8, 0.05, planning::correction::none), unreachable_target);
     EXPECT_THROW(planning::power(0.5, 0.50001, 0.8, 0.05, planning::correction::none), unreachable_target);
@@ -185,4 +192,38 @@ TEST(Planning, BadArgumentsAreInvalidInput) {
     EXPECT_EQ(planning::correction_from_number(1), planning::correction::continuity);
     EXPECT_EQ(planning::correction_from_number(0), planning::correction::none);
     EXPECT_THROW(planning::ahead({15, 1}, {3, 1}, 0.0), invalid_input);
+}
+
+TEST(Planning, EveryDemonstrationIsTheOneSidedClopperPearsonClaim) {
+    // The claim of a demonstration (methods.md, "One-sided claims"): for
+    // every plan RATES.PLAN.DEMO returns, the one-sided Clopper-Pearson lower
+    // bound at the same confidence (RATES.ONE.LOW with "clopper-pearson" and
+    // sides "one") of n - f passing out of n reaches the rate, and of
+    // n - 1 - f out of n - 1 does not. The bound is Boost's, the size the
+    // planning search's: two computations that must meet. Over rates from
+    // 0.5 to 0.9999, confidences 0.5 to 0.999 and 0 to 20 failures.
+    std::size_t plans = 0;
+    for (double rate : {0.5, 0.8, 0.9, 0.95, 0.975, 0.99, 0.995, 0.999, 0.9999})
+        for (double confidence : {0.5, 0.6, 0.8, 0.9, 0.95, 0.99, 0.999})
+            for (std::int64_t f : {0, 1, 2, 3, 5, 10, 20}) {
+                if (rate >= 0.999 && f > 3) continue;  // plans beyond 10^5 units: covered by the sweep
+                const auto n = planning::demonstration(rate, confidence, f);
+                const group run{1, n - f, n}, shorter{1, n - 1 - f, n - 1};
+                const double bound = one_rate::bounds(run, confidence, one_rate::method::clopper_pearson, sides::one).low;
+                EXPECT_GE(bound, rate * (1 - 1e-12)) << rate << " " << confidence << " f=" << f << " n=" << n;
+                if (n - 1 > f) {
+                    const double below =
+                        one_rate::bounds(shorter, confidence, one_rate::method::clopper_pearson, sides::one).low;
+                    EXPECT_LT(below, rate * (1 + 1e-12)) << rate << " " << confidence << " f=" << f << " n=" << n;
+                }
+                ++plans;
+            }
+    EXPECT_GE(plans, 300u);
+    // The example: 59 of 59 demonstrates 95 % at 95 % (0.05^(1/59) =
+    // 0.95049, the zero-failure formula); the two-sided bound at 95 % does not
+    // (93.9 %, each tail 2.5 %).
+    EXPECT_EQ(planning::demonstration(0.95, 0.95, 0), 59);
+    EXPECT_NEAR(one_rate::bounds(group{1, 59, 59}, 0.95, one_rate::method::clopper_pearson, sides::one).low,
+                std::pow(0.05, 1.0 / 59), 1e-13);
+    EXPECT_LT(one_rate::bounds(group{1, 59, 59}, 0.95, one_rate::method::clopper_pearson, sides::two).low, 0.95);
 }

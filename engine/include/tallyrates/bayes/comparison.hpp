@@ -20,6 +20,8 @@ namespace tallyrates::bayes {
 
 // P(rate of law x > rate of law y).
 double ahead(const beta_law& x, const beta_law& y);
+// P(rate x is the better one): above y's for goal high, below for goal low.
+inline double ahead(const beta_law& x, const beta_law& y, goal g) { return g == goal::high ? ahead(x, y) : ahead(y, x); }
 // The same to an absolute accuracy of about 1e-9 only (a tiny probability
 // loses its relative digits), where it is compared with a confidence
 // (RATES.PLAN.AHEAD): an integral, when one is needed, runs over the law's
@@ -35,7 +37,8 @@ interval difference(const beta_law& x, const beta_law& y, double level);
 // fills G x G cells, 100 groups with whole priors, 40 otherwise, where each
 // cell may be an integral (about 2 s at most).
 inline constexpr std::size_t max_groups_order = 100, max_groups_order_integrals = 40;
-// RATES.POST.ORDER: cell (r, c) holds P(rate_r > rate_c), the diagonal 0.
-std::vector<std::vector<double>> order(std::span<const beta_law> laws);
+// RATES.POST.ORDER: cell (r, c) holds P(rate_r > rate_c) (P(rate_r < rate_c)
+// for goal low: row r better than column c), the diagonal 0.
+std::vector<std::vector<double>> order(std::span<const beta_law> laws, goal g = default_goal);
 
 }  // namespace tallyrates::bayes

@@ -26,6 +26,7 @@
 
 #include "tallyrates/core/counts.hpp"
 #include "tallyrates/core/interval.hpp"
+#include "tallyrates/core/rules.hpp"
 
 namespace tallyrates::bayes {
 
@@ -33,9 +34,10 @@ struct prior {
     double a = 1.0;
     double b = 1.0;
 };
-enum class goal { high, low };        // successes are good, or the counts are defects
-enum class kind { central, hpd };
-inline constexpr goal default_goal = goal::high;
+using tallyrates::default_goal;
+using tallyrates::goal;  // rules.hpp: successes are good, or the counts are defects
+// Equal tails, the shortest interval, or each bound alone holding at the level.
+enum class kind { central, hpd, one_sided };
 inline constexpr kind default_kind = kind::central;
 
 struct beta_law {
@@ -55,6 +57,9 @@ prior checked(prior p);
 beta_law posterior(const group& g, prior p);
 
 double mean(const beta_law& law);
+// The law of 1 - rate: what goal low turns a tally of defects into (units
+// without the defect counted as successes).
+inline beta_law mirrored(const beta_law& law) { return {law.b, law.a}; }
 interval credible(const beta_law& law, double level, kind how);
 // P(rate > r), or P(rate < r) for goal low; r in [0, 1].
 double above(const beta_law& law, double rate, goal g);

@@ -13,6 +13,8 @@
 #include <string>
 #include <string_view>
 
+#include "tallyrates/core/rules.hpp"
+
 namespace tallyrates::arguments {
 
 // A whole number in [low, high]. Not whole, not finite or below `low`:
@@ -28,6 +30,12 @@ std::size_t position(double value, std::size_t size, const char* name);
 double level(double value, const char* name);
 // The level every function uses when none is given.
 inline constexpr double default_level = 0.95;
+// The level of the two-sided interval whose ends are the bounds asked:
+// `level` itself for sides "two"; for "one" each end alone holds at `level`,
+// so the interval has 2 level - 1 (each tail 1 - level; 0 at level 0.5, the
+// median claim of reliability demonstrations), and `level` must be at least
+// 0.5. Checked as `level` above.
+double interval_level(double value, sides s, const char* name);
 
 // A rate: a fraction from 0 to 1 inclusive.
 double rate(double value, const char* name);

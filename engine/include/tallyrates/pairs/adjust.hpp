@@ -15,7 +15,7 @@
 namespace tallyrates::adjust {
 
 enum class simultaneous { none, bonferroni, sidak };
-enum class p_values { none, holm, hochberg, bh, bonferroni, sidak };
+enum class p_values { none, holm, hochberg, benjamini_hochberg, bonferroni, sidak };
 
 // The level each of m intervals needs so that all m hold together at `level`.
 double per_comparison_level(double level, std::size_t m, simultaneous how);

@@ -36,8 +36,8 @@
 //   far (the binomial tail falls as units are added, so no smaller m can
 //   meet it), 0 when the record already shows the rate.
 // - ahead (RATES.PLAN.AHEAD): the fewest further attempts m of a group, all
-//   successful, after which P(its rate > the other group's) reaches the
-//   confidence (bayes::ahead). The probability rises with m, so m is found by
+//   successful (for goal low: all without a defect), after which P(its rate
+//   is the better one) reaches the confidence (bayes::ahead). The probability rises with m, so m is found by
 //   doubling, then bisection.
 //
 // Every answer is capped at max_attempts; an answer beyond it, or a target
@@ -92,7 +92,10 @@ inline constexpr double default_power = 0.8, default_alpha = 0.05;
 double power_at(double rate_1, double rate_2, double n, double alpha, correction how, double ratio = default_ratio);
 
 // RATES.PLAN.AHEAD: further successes of `pilot` until P(rate_pilot >
-// rate_other) >= confidence; 0 when it already is.
-std::int64_t ahead(const bayes::beta_law& pilot, const bayes::beta_law& other, double confidence);
+// rate_other) >= confidence; 0 when it already is. Goal low (the counts are
+// defects): further attempts without a defect until P(rate_pilot <
+// rate_other) >= confidence, the same search on the mirrored laws.
+std::int64_t ahead(const bayes::beta_law& pilot, const bayes::beta_law& other, double confidence,
+                   goal g = default_goal);
 
 }  // namespace tallyrates::planning
