@@ -68,7 +68,7 @@ from statsmodels.stats.multitest import multipletests
 from statsmodels.stats.proportion import confint_proportions_2indep, proportion_confint
 
 sys.path.insert(0, __file__.rsplit("/", 1)[0])
-from pairs import SCORE_SOURCE, mn_interval, pair_p_values  # noqa: E402  (independent implementations)
+from pairs import SCORE_SOURCE, fm_p, mn_interval, pair_p_values  # noqa: E402  (independent implementations)
 
 SCIPY = "scipy " + scipy.__version__
 STATSMODELS = "statsmodels " + statsmodels.__version__
@@ -603,6 +603,38 @@ def more_and_ratio_rows(w):
                 (mpmath.__version__, ", Fleiss, Tytun & Ury (1980) correction" if corrected else ""))
 
 
+def claims_rows(w):
+    """Margins (RATES.MARGIN.P: pairs.py fm_p, Farrington & Manning 1990 in
+    50-digit mpmath, checked there against a direct maximisation), one-sided
+    Clopper-Pearson bounds (scipy beta.ppf) and one-sided Miettinen-Nurminen
+    bounds (pairs.py mn_interval at 2 level - 1) on random tallies of mixed
+    sizes, levels from 0.5 up."""
+    claims = ["not-worse", "better", "equivalent"]
+    for case in range(150):
+        x, n = tally(2, 8)
+        i, j = (int(v) for v in RNG.choice(len(x), 2, replace=False))
+        if n[i] == 0 or n[j] == 0:
+            continue
+        name = "sweep_claims_%d" % case
+        claim, goal = claims[case % 3], ("high", "low")[(case // 3) % 2]
+        margin = float(RNG.choice([0.0, 0.001, 0.01, 0.05, 0.2])) if claim != "equivalent" else \
+            float(RNG.choice([0.001, 0.01, 0.05, 0.2]))
+        p = fm_p(x[i], n[i], x[j], n[j], margin, claim, goal)
+        out(w, "claims", name, x, n, "margin|%s|%s|%r|%d|%d" % (claim, goal, margin, i + 1, j + 1), float(p),
+            "pairs.py fm_p (Farrington & Manning 1990, mpmath %s at 50 digits)" % mpmath.__version__)
+        lv = max(0.5, level())
+        low = 0.0 if x[i] == 0 else scipy.stats.beta.ppf(1 - lv, x[i], n[i] - x[i] + 1)
+        high = 1.0 if x[i] == n[i] else scipy.stats.beta.ppf(lv, x[i] + 1, n[i] - x[i])
+        src = SCIPY + " beta.ppf: one-sided Clopper-Pearson at level"
+        out(w, "claims", name, x, n, "sided_low|%d|%r" % (i + 1, lv), low, src)
+        out(w, "claims", name, x, n, "sided_high|%d|%r" % (i + 1, lv), high, src)
+        if case % 3 == 0 and max(n[i], n[j]) <= 10 ** 5:
+            lo, hi = mn_interval(x[i], n[i], x[j], n[j], 2 * lv - 1)
+            src = "pairs.py mn_interval at 2 level - 1: one-sided Miettinen-Nurminen bounds"
+            out(w, "claims", name, x, n, "diffsided_low|%d|%d|%r" % (i + 1, j + 1, lv), lo, src)
+            out(w, "claims", name, x, n, "diffsided_high|%d|%d|%r" % (i + 1, j + 1, lv), hi, src)
+
+
 def main():
     # Laws far apart underflow to 0 in scipy's Boost calls: the warning is noise.
     np.seterr(all="ignore")
@@ -610,7 +642,7 @@ def main():
     w = csv.writer(sys.stdout, lineterminator="\n")
     w.writerow(["family", "case", "successes", "attempts", "quantity", "value", "source"])
     for section in (bayes_rows, pairs_rows, omnibus_rows, planning_rows, family_rows, hpd_rows, extra_planning_rows,
-                    more_and_ratio_rows):
+                    more_and_ratio_rows, claims_rows):
         section(w)
 
 

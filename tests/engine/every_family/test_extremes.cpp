@@ -17,9 +17,14 @@
 #include "tallyrates/bayes/comparison.hpp"
 #include "tallyrates/bayes/law.hpp"
 #include "tallyrates/core/errors.hpp"
+#include "tallyrates/pairs/margin.hpp"
+#include "tallyrates/pairs/one_rate.hpp"
+#include "tallyrates/pairs/pairwise.hpp"
 #include "tallyrates/planning/planning.hpp"
+#include "cells.hpp"
 
 using namespace tallyrates;
+namespace cell = tallyrates::testing::cell;
 
 namespace {
 
@@ -137,4 +142,42 @@ TEST(Extremes, BayesianAnswersOrRefuses) {
             }
     std::cout << "bayesian extremes: " << calls << " calls in all, " << answered << " answered, slowest " << worst.ms
               << " ms (" << worst.what << ")\n";
+}
+
+TEST(Extremes, ClaimsAnswerOrRefuse) {
+    // Margins, one-sided bounds and the pairs table's verdict at the ends of
+    // what a sheet can hold: counts of 0, 1 and 10^15, 0 % and 100 %, margins
+    // from 0 to just below 1, levels at both ends. An answer in [0, 1] or an
+    // engine error, never a hang.
+    const std::int64_t sizes[] = {1, 14, 1000000, 1000000000000000};
+    const double margins[] = {0.0, tiny, 0.01, 0.5, 1 - tiny};
+    std::vector<std::pair<std::int64_t, std::int64_t>> shapes;
+    for (std::int64_t n : sizes)
+        for (std::int64_t x : {std::int64_t{0}, n / 2, n - 1, n})
+            if (x >= 0) shapes.emplace_back(x, n);
+    for (const auto& [x1, n1] : shapes)
+        for (const auto& [x2, n2] : shapes) {
+            const group a{1, x1, n1}, b{2, x2, n2};
+            for (double m : margins)
+                for (auto claim : {pairwise::claim::not_worse, pairwise::claim::better, pairwise::claim::equivalent})
+                    for (auto g : {goal::high, goal::low})
+                        answer_or_error("margin_p(" + std::to_string(x1) + "/" + std::to_string(n1) + ", " +
+                                            std::to_string(x2) + "/" + std::to_string(n2) + ", " + std::to_string(m) +
+                                            ")",
+                                        [&] { return pairwise::margin_p(a, b, m, claim, g); }, 0, 1);
+            for (double c : levels) {
+                pairwise::interval_options o;
+                o.level = c;
+                o.side = sides::one;
+                answer_or_error("one-sided difference at " + std::to_string(c), [&] {
+                    const auto tally = counts::from_values(std::vector{x1, x2}, std::vector{n1, n2});
+                    return cell::difference_interval(tally, 1, 2, o).low;
+                }, -1, 1);
+                answer_or_error("one-sided bound at " + std::to_string(c),
+                                [&] { return one_rate::bounds(a, c, one_rate::method::clopper_pearson, sides::one).low; },
+                                0, 1);
+            }
+        }
+    std::cout << "claims extremes: " << calls << " calls, " << answered << " answered, slowest " << worst.ms << " ms ("
+              << worst.what << ")\n";
 }

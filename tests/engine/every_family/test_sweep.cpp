@@ -21,6 +21,7 @@
 #include "tallyrates/core/errors.hpp"
 #include "tallyrates/omnibus/same_rates.hpp"
 #include "tallyrates/omnibus/residuals.hpp"
+#include "tallyrates/pairs/margin.hpp"
 #include "tallyrates/pairs/one_rate.hpp"
 #include "tallyrates/pairs/pairwise.hpp"
 #include "tallyrates/planning/planning.hpp"
@@ -299,6 +300,47 @@ struct draw {
 };
 
 }  // namespace
+
+TEST(Sweep, ClaimsAgainstMpmathAndScipy) {
+    // Margins (Farrington & Manning 1990 in 50-digit mpmath), one-sided
+    // Clopper-Pearson bounds (scipy beta.ppf) and one-sided
+    // Miettinen-Nurminen bounds (pairs.py), random tallies of mixed sizes.
+    const auto rows = sweep_rows("claims");
+    std::map<std::string, int> checked;
+    for (const auto& r : rows) {
+        const auto f = fields(r.quantity);
+        const std::string& what = f[0];
+        const auto c = counts::from_values(r.x, r.n);
+        if (what == "margin") {
+            const auto claim = f[1] == "not-worse" ? pairwise::claim::not_worse
+                               : f[1] == "better"  ? pairwise::claim::better
+                                                   : pairwise::claim::equivalent;
+            const auto [a, b] = pairwise::pair_at(c, std::stod(f[4]), std::stod(f[5]));
+            const double p = pairwise::margin_p(a, b, std::stod(f[3]), claim, goal_of(f[2]));
+            // The statistic's rounding at 10^7 attempts moves a p near 1e-12 by
+            // about 1e-9 of itself; a p below 1e-300 is 0 in both.
+            expect_within(p, r.value, 1e-12, 1e-8, r);
+        } else if (what == "sided_low" || what == "sided_high") {
+            const auto& g = c.with_attempts_at(std::stod(f[1]), "i");
+            const auto b = one_rate::bounds(g, std::stod(f[2]), one_rate::method::clopper_pearson, sides::one);
+            expect_within(what == "sided_low" ? b.low : b.high, r.value, 1e-12, 1e-9, r);
+        } else if (what == "diffsided_low" || what == "diffsided_high") {
+            pairwise::interval_options o;
+            o.level = std::stod(f[3]);
+            o.adjust = adjust::simultaneous::none;
+            o.side = sides::one;
+            const auto b = cell::difference_interval(c, std::stod(f[1]), std::stod(f[2]), o);
+            expect_within(what == "diffsided_low" ? b.low : b.high, r.value, 5e-8, 1e-9, r);
+        } else {
+            ADD_FAILURE() << "unknown quantity " << r.quantity;
+        }
+        ++checked[what];
+    }
+    std::cout << "claims sweep: " << count_cases(rows) << " tallies, " << rows.size() << " rows\n";
+    EXPECT_GE(checked["margin"], 120);
+    EXPECT_GE(checked["sided_low"], 120);
+    EXPECT_GE(checked["diffsided_low"], 25);
+}
 
 TEST(Sweep, BayesianInvariants) {
     draw d{20261205};
