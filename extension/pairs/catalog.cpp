@@ -81,7 +81,8 @@ constexpr argument claim{
     "claim",
     "Leave empty or \"not-worse\": group i's rate is not below group j's by margin or more (a new supplier "
     "against the old one). \"better\": above group j's by more than margin. \"equivalent\": within +- margin "
-    "of it (two one-sided tests, Schuirmann 1987).",
+    "of it (two one-sided tests, Schuirmann 1987). With goal \"low\" the claims are about defects: not worse "
+    "means not above group j's defect rate by margin or more, better means below it by more than margin.",
     "\"not-worse\""};
 constexpr std::array margin_args{successes, attempts, i, j, margin, claim, shared::goal};
 
@@ -123,13 +124,14 @@ constexpr std::array table{
              "(non-inferiority), better by more than margin, or equivalent within +- margin (Farrington and "
              "Manning 1990 score test). Small (below 0.05, say) supports the claim: the counts rule out the "
              "opposite. Statistical support is not engineering acceptance; the margin must come from the "
-             "process." TALLYRATES_WHY_502_POSITIONS,
+             "process. If the cell shows Err:502, RATES.CHECK on the same ranges with the same i and j says why "
+             "(a margin outside 0 to 1, or a word that is not one of those listed here, are the other causes).",
              margin_args},
     function{"oneLow", "RATES.ONE.LOW",
              "Lower confidence bound for the success rate of group i (a fraction; format as %). With sides "
              "\"two\" (the default) it is one end of an interval holding at level; with \"one\" the bound "
              "alone holds at level: with 59 of 59 passing, RATES.ONE.LOW at 0.95, \"clopper-pearson\", \"one\" "
-             "gives 95.0 %: the run shows the rate is at least that with 95 % confidence." TALLYRATES_WHY_502_ONE,
+             "gives 95.05 %: the run shows the rate is at least that with 95 % confidence." TALLYRATES_WHY_502_ONE,
              one_args},
     function{"oneHigh", "RATES.ONE.HIGH",
              "Upper confidence bound for the success rate of group i (a fraction; format as %). With 0 defects in "

@@ -81,7 +81,7 @@ def rows():
     yield ("4", "=RATES.POST.NEXT({r};1;1000000000)", [14], [14], float(Fraction(15, 15 + 10 ** 9)),
            "exact fraction 15 / (15 + 10^9) (beta-binomial closed form)")
     # 5. A prior so large that it swallows the counts: refused.
-    yield ("5", "=RATES.POST.AHEAD({r};1;2;1E+300;1E+300)", [13, 10], [14, 14], "Err:502",
+    yield ("5", "=RATES.POST.AHEAD({r};1;2;;1E+300;1E+300)", [13, 10], [14, 14], "Err:502",
            "priors from 0.01 to 10^6 (the engine's documented range)")
     # 6. z does not depend on the scale of the scores.
     x, n = [12, 15, 21], [40, 41, 38]
@@ -96,7 +96,7 @@ def rows():
     m = 647122185
     p_at = [best_and_expected([(13.5 + k, 1.5), (1e6 + 0.5, 0.5)], True, GL2_NODES, GL2_WEIGHTS)[0][0] for k in (m - 1, m)]
     assert p_at[0] < 0.95 <= p_at[1], p_at
-    yield ("7", "=RATES.PLAN.AHEAD({r};1;2;0.95;0.5;0.5)", [13, 1000000], [14, 1000000], m,
+    yield ("7", "=RATES.PLAN.AHEAD({r};1;2;0.95;;0.5;0.5)", [13, 1000000], [14, 1000000], m,
            QUAD + ": P at m - 1 below 0.95, at m above")
     # 8. Highest-density bounds with a first parameter just above 1: Beta(1.05,
     # 9.05), 1 success in 10 with the prior 0.05 / 0.05 (the "1 in 9"
