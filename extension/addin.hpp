@@ -39,6 +39,7 @@ public:
 #include "pairs/methods.inc"
 #include "bayes/methods.inc"
 #include "planning/methods.inc"
+#include "apart/methods.inc"
 
     // ---- XAddIn, XServiceName, XServiceInfo (addin.cpp) ----
     OUString SAL_CALL getProgrammaticFuntionName(const OUString& display) override;

@@ -22,7 +22,8 @@ bool same_text_ignoring_case(std::string_view a, std::string_view b) {
 std::span<const function> functions() {
     static const std::vector<function> all = [] {
         std::vector<function> v;
-        for (const auto family : {omnibus_functions(), pairs_functions(), bayes_functions(), planning_functions()})
+        for (const auto family :
+             {omnibus_functions(), pairs_functions(), bayes_functions(), planning_functions(), apart_functions()})
             v.insert(v.end(), family.begin(), family.end());
         return v;
     }();

@@ -57,6 +57,7 @@ std::span<const function> omnibus_functions();
 std::span<const function> pairs_functions();
 std::span<const function> bayes_functions();
 std::span<const function> planning_functions();
+std::span<const function> apart_functions();
 
 // Every family, in the order of the function reference.
 std::span<const function> functions();

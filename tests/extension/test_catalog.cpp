@@ -11,6 +11,7 @@
 #include <set>
 #include <sstream>
 
+#include "apart/keywords.hpp"
 #include "bayes/keywords.hpp"
 #include "catalog.hpp"
 #include "omnibus/keywords.hpp"
@@ -107,7 +108,7 @@ TEST(Catalog, EveryDefaultIsTheEngines) {
     const pairwise::test_options test;
     const pairwise::table_options table;
     const std::string automatic = quoted(omnibus::options{}.how, keywords::omnibus_method);
-    const std::map<std::pair<std::string, std::string>, std::string> words{
+    std::map<std::pair<std::string, std::string>, std::string> words{
         {{"check", "method"}, automatic},
         {{"sameP", "method"}, automatic},
         {{"sameReport", "method"}, automatic},
@@ -145,7 +146,13 @@ TEST(Catalog, EveryDefaultIsTheEngines) {
         {{"diffHigh", "sides"}, quoted(interval.side, keywords::sides)},
         {{"oneLow", "sides"}, quoted(default_sides, keywords::sides)},
         {{"oneHigh", "sides"}, quoted(default_sides, keywords::sides)}};
-    const std::set<std::string> notes{"labels", "i", "j", "k", "scores", "correction"};
+    const apart::options apart_defaults;
+    for (const char* f : {"apartLow", "apartHigh", "apart"}) {
+        words[{f, "family"}] = quoted(apart_defaults.together, keywords::apart_family);
+        words[{f, "method"}] = quoted(apart_defaults.how, keywords::apart_method);
+        words[{f, "spread"}] = quoted(apart_defaults.variation, keywords::apart_spread);
+    }
+    const std::set<std::string> notes{"labels", "i", "j", "k", "scores", "correction", "target"};
     std::size_t numbers_seen = 0, words_seen = 0;
     for (const auto& f : catalog::functions())
         for (const auto& a : f.arguments) {

@@ -12,7 +12,7 @@ sys.path.insert(0, HERE)
 import lo_session as lo  # noqa: E402
 
 # The families' reference tables (tests/reference/<family>.py writes each).
-REFERENCES = [os.path.join(HERE, "..", "reference", name + ".csv") for name in ("omnibus", "pairs", "bayes", "planning")]
+REFERENCES = [os.path.join(HERE, "..", "reference", name + ".csv") for name in ("omnibus", "pairs", "bayes", "planning", "apart")]
 OFFICE = None
 
 

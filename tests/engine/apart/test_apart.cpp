@@ -1,0 +1,96 @@
+// Tests of the apart family: decision limits for every group around the
+// whole (analysis of means, funnel and p-chart limits, exact for small
+// counts).
+//
+// Outside values: rows of tests/reference/apart.csv written by apart.py
+// (scipy norm, binom and hypergeom; Laney's sigma_z in numpy; for the exact
+// limits of every group at once, every table with the tally's margins
+// enumerated), each naming its source.
+#include <gtest/gtest.h>
+
+#include <cmath>
+#include <map>
+
+#include "reference.hpp"
+#include "support.hpp"
+#include "tallyrates/apart/limits.hpp"
+#include "tallyrates/core/errors.hpp"
+
+using namespace tallyrates;
+using tallyrates::testing::fields;
+using tallyrates::testing::reference_rows;
+using tallyrates::testing::tally;
+
+TEST(Apart, ReferenceRows) {
+    // apart|method|family|target|spread|level|i|end
+    std::map<std::string, int> checked;
+    for (const auto& r : reference_rows("apart.csv", "apart|")) {
+        const auto f = fields(r.quantity);
+        ASSERT_EQ(f.size(), 8u) << r.quantity;
+        apart::options o;
+        o.how = f[1] == "normal" ? apart::method::normal : apart::method::exact;
+        o.together = f[2] == "each" ? apart::family::each : apart::family::all;
+        if (f[3] != "none") o.target = std::stod(f[3]);
+        o.variation = f[4] == "time" ? apart::spread::time : apart::spread::none;
+        o.level = std::stod(f[5]);
+        const auto res = apart::limits(counts::from_values(r.successes, r.attempts), o);
+        const auto& lim = res.rows.at(std::stoul(f[6]) - 1).limits;
+        const double got = f[7] == "low" ? lim.low : lim.high;
+        // Exact limits are whole counts over n: equal to the last bit; normal
+        // ones are formulas of scipy's quantile.
+        const double tol = o.how == apart::method::exact ? 0.0 : 1e-12;
+        EXPECT_NEAR(got, r.value, tol) << r.name << " " << r.quantity << " " << r.source;
+        ++checked[f[1] + f[2] + f[3]];
+    }
+    EXPECT_EQ(checked.size(), 8u);
+    EXPECT_GE(checked["exactallnone"], 2 * 2 * (4 + 4 + 3));
+}
+
+TEST(Apart, OvenCStandsBelowTheWhole) {
+    // The sample tally: oven C (233 of 260) falls below the exact limits for
+    // every oven at once (the enumeration row of apart.csv gives 90.0 %),
+    // the others stay within.
+    const auto c = tally({286, 271, 233, 14}, {300, 290, 260, 14});
+    const auto res = apart::limits(c, {});
+    ASSERT_EQ(res.rows.size(), 4u);
+    EXPECT_EQ(res.rows[2].verdict, -1);
+    EXPECT_EQ(res.rows[0].verdict, 0);
+    EXPECT_EQ(res.rows[3].verdict, 0);
+    EXPECT_FALSE(res.fell_back);
+    // Never wider than the Sidak limits of the same marginals, never
+    // narrower than one group's own.
+    EXPECT_GE(res.tail, -std::expm1(std::log(0.95) / 4) / 2);
+    EXPECT_LE(res.tail, 0.025);
+    EXPECT_EQ(apart::verdict_word(res.rows[2].verdict), "below");
+}
+
+TEST(Apart, RefusalsSayWhy) {
+    const auto c = tally({9, 10}, {10, 10});
+    apart::options o;
+    o.target = 1.5;
+    TALLYRATES_EXPECT_THROW_SAYING(apart::limits(c, o), invalid_input, "target");
+    o = {};
+    o.variation = apart::spread::time;
+    TALLYRATES_EXPECT_THROW_SAYING(apart::limits(c, o), invalid_input, "normal");
+    TALLYRATES_EXPECT_THROW_SAYING(apart::limits(tally({10, 10}, {10, 10}), {}), invalid_input, "passed");
+    TALLYRATES_EXPECT_THROW_SAYING(apart::limits(tally({4}, {10}), {}), invalid_input, "two groups");
+    o = {};
+    o.target = 0.9;  // one group against a standard is a funnel point
+    EXPECT_NO_THROW(apart::limits(tally({4}, {10}), o));
+    o.level = 1;
+    EXPECT_THROW(apart::limits(c, o), invalid_input);
+}
+
+TEST(Apart, LargeTalliesFallBackOrRefuseAtOnce) {
+    // 100 groups of 10^6: the exact recursion for every group at once would
+    // pass its cap (judged before it runs); the Sidak limits of the
+    // marginals come instead.
+    std::vector<std::int64_t> x(100), n(100, 1000000);
+    for (std::size_t g = 0; g < x.size(); ++g) x[g] = 900000 + static_cast<std::int64_t>(g * 37 % 500);
+    const auto res = apart::limits(counts::from_values(x, n), {});
+    EXPECT_TRUE(res.fell_back);
+    EXPECT_NEAR(res.tail, -std::expm1(std::log(0.95) / 100) / 2, 1e-15);
+    // Counts of 10^13: too many marginal values to store; Err:523 at once.
+    EXPECT_THROW(apart::limits(tally({4000000000000, 5000000000000}, {10000000000000, 10000000000000}), {}),
+                 budget_exceeded);
+}
