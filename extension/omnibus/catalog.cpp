@@ -23,7 +23,10 @@ constexpr argument method{
     "Err:523 when it would need more than about 5 s), "
     "\"pearson\" (chi-square approximation) or \"montecarlo\" (random tables with the same totals). Specialist "
     "variants: \"lr\" (likelihood-ratio chi-square), \"exact-lr\" and \"exact-prob\" (exact test ordering tables "
-    "by G² or by their probability).",
+    "by G² or by their probability). \"tarone\" asks another question: do the groups vary more than counting "
+    "alone explains (Tarone 1979; one-sided; many small groups; Err:502 when every group has one attempt or "
+    "every unit passed or none did)? A small p says intervals and limits that assume independent units are too "
+    "narrow.",
     "\"auto\": chi-square when every expected count is at least 5, else the exact test when it fits the time "
     "budget, else Monte Carlo"};
 constexpr argument draws{"draws",

@@ -14,7 +14,7 @@ namespace tallyrates::keywords {
 
 using arguments::word;
 
-inline constexpr std::array<word<omnibus::method>, 7> omnibus_method{{
+inline constexpr std::array<word<omnibus::method>, 8> omnibus_method{{
     {"auto", omnibus::method::automatic},
     {"pearson", omnibus::method::pearson},
     {"lr", omnibus::method::lr},
@@ -22,6 +22,7 @@ inline constexpr std::array<word<omnibus::method>, 7> omnibus_method{{
     {"exact-lr", omnibus::method::exact_lr},
     {"exact-prob", omnibus::method::exact_prob},
     {"montecarlo", omnibus::method::monte_carlo},
+    {"tarone", omnibus::method::tarone},
 }};
 
 inline constexpr std::array<word<omnibus::ordering>, 2> statistic{{

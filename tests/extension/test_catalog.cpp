@@ -254,6 +254,6 @@ TEST(Keywords, CaseInsensitiveAndListsTheAllowedWords) {
     } catch (const invalid_input& e) {
         EXPECT_STREQ(e.what(),
                      "The argument method must be one of \"auto\", \"pearson\", \"lr\", \"exact\", \"exact-lr\", "
-                     "\"exact-prob\", \"montecarlo\"; got \"fisher\".");
+                     "\"exact-prob\", \"montecarlo\", \"tarone\"; got \"fisher\".");
     }
 }

@@ -30,10 +30,12 @@ class ReferenceValues(SheetCase):
 
     def test_every_reference_row(self):
         method = {"pearson_p": '"pearson"', "lr_p": '"lr"', "exact_p": '"exact"', "exact_lr_p": '"exact-lr"',
-                  "exact_prob_p": '"exact-prob"', "fisher_p": '"exact"'}
+                  "exact_prob_p": '"exact-prob"', "fisher_p": '"exact"', "tarone_p": '"tarone"'}
         checked = 0
         for row in harness.reference_rows():
             q = row["quantity"]
+            if not (q in method or q in ("pearson_stat", "lr_stat") or (q.startswith("trend_") and q.endswith("_p"))):
+                continue
             r = self.put_counts(row["successes"], row["attempts"], first_row=1)
             if q in method:
                 text = "=RATES.SAME.P(%s;%s)" % (r, method[q])
@@ -56,7 +58,7 @@ class ReferenceValues(SheetCase):
             checked += 1
             # Clear for the next case (cases differ in size).
             self.sheet.getCellRangeByName("A1:C20").clearContents(1 | 4 | 16)
-        self.assertEqual(checked, 40 + 41 + 6)  # chi-square, exact (incl. near ties and N = 300-480), trend
+        self.assertEqual(checked, 40 + 41 + 6 + 3)  # chi-square, exact (incl. near ties and N = 300-480), trend, Tarone
 
     def test_diff(self):
         # Arithmetic of the definition rate_i - rate_j (common practice, no source).
@@ -274,6 +276,28 @@ class Wizard(SheetCase):
                 self.assertEqual(a.Description, text)
                 self.assertTrue(text)
 
+
+
+class ExtraVariation(SheetCase):
+    def test_tarone_in_the_report_and_its_refusal(self):
+        # omnibus.csv t_spread_lots: Tarone (1979) recomputed in exact fractions and mpmath.
+        want = {r["quantity"]: r["value"] for r in harness.reference_rows() if r["case"] == "t_spread_lots"}
+        x = [8, 2, 7, 8, 1, 6, 8, 3, 7, 8, 2, 8]
+        r = self.put_counts(x, [8] * 12)
+        self.sheet.getCellRangeByName("D1:E11").setArrayFormula('RATES.SAME.REPORT(%s;"tarone")' % r)
+        self.doc.calculateAll()
+        cell = self.sheet.getCellRangeByName
+        self.assertEqual(cell("D1").getString(), "statistic: Tarone's z")
+        self.assertRelative(cell("E1").getValue(), want["tarone_z"], 1e-12, "tarone_z")
+        self.assertEqual(cell("E2").getString(), "")  # no degrees of freedom
+        self.assertRelative(cell("E3").getValue(), want["tarone_p"], 1e-12, "tarone_p")
+        self.assertIn("Tarone", cell("E4").getString())
+        # Every lot of one unit: not defined; RATES.CHECK with the method says why.
+        r = self.put_counts([1, 0, 1, 1], [1, 1, 1, 1], "G", "H")
+        self.formula("J1", '=RATES.SAME.P(%s;"tarone")' % r)
+        self.formula("J2", '=RATES.CHECK(%s;"tarone")' % r)
+        self.assertEqual(self.shown("J1"), "Err:502")
+        self.assertIn("single attempt", self.shown("J2"))
 
 if __name__ == "__main__":
     harness.main()

@@ -234,7 +234,32 @@ def residual_rows(w):
             row(w, name, x, n, "resid_%d" % (g + 1), v, STATSMODELS + " Table(shift_zeros=False).standardized_resids")
 
 
-SECTIONS = ['chi_rows', 'exact_rows', 'trend_rows', 'residual_rows']
+# Tarone (1979): invented tallies of many small groups (lots of 8 to 30
+# units), one that varies beyond counting and one that does not, and the
+# sample sheet's ovens.
+TARONE_CASES = [
+    ("t_spread_lots", [8, 2, 7, 8, 1, 6, 8, 3, 7, 8, 2, 8], [8, 8, 8, 8, 8, 8, 8, 8, 8, 8, 8, 8]),
+    ("t_even_lots", [27, 25, 28, 26, 29, 24, 27, 28, 26, 27], [30, 28, 30, 29, 31, 27, 30, 30, 29, 30]),
+    ("t_ovens", [286, 271, 233, 14], [300, 290, 260, 14]),
+]
+
+
+def tarone_rows(w):
+    """Z = [sum (x_i - n_i p)^2 / (p q) - N] / sqrt(2 sum n_i (n_i - 1)), the
+    numerator in exact fractions, the root and the normal tail in 50-digit
+    mpmath."""
+    mpmath.mp.dps = 50
+    for name, x, n in TARONE_CASES:
+        big_n, s = sum(n), sum(x)
+        p = Fraction(s, big_n)
+        num = sum((xi - ni * p) ** 2 for xi, ni in zip(x, n)) / (p * (1 - p)) - big_n
+        z = mpmath.mpf(num.numerator) / num.denominator / mpmath.sqrt(2 * sum(ni * (ni - 1) for ni in n))
+        source = "Tarone (1979) formula: exact fractions, mpmath %s sqrt and ncdf (50 digits)" % mpmath.__version__
+        row(w, name, x, n, "tarone_z", float(z), source)
+        row(w, name, x, n, "tarone_p", float(mpmath.ncdf(-z)), source)
+
+
+SECTIONS = ['chi_rows', 'exact_rows', 'trend_rows', 'residual_rows', 'tarone_rows']
 
 
 if __name__ == "__main__":

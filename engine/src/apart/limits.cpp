@@ -11,7 +11,7 @@
 #include "detail/hypergeometric.hpp"
 #include "tallyrates/core/errors.hpp"
 #include "tallyrates/core/text.hpp"
-#include "tallyrates/apart/spread.hpp"
+#include "tallyrates/omnibus/tarone.hpp"
 
 namespace tallyrates::apart {
 
@@ -341,7 +341,7 @@ std::vector<std::vector<table_cell>> table(const counts& c, const options& o) {
                        std::string(), std::string(), std::string(), std::string()});
     if (res.rows.size() >= min_groups_caution) {
         try {
-            const auto v = tarone(c);
+            const auto v = omnibus::tarone(c);
             if (v.p < 0.05)
                 out.push_back({std::string("caution"),
                                "The groups vary more than counting alone explains (Tarone's test, p = " +

@@ -25,6 +25,7 @@ const char* route_text(omnibus::route r) {
         case omnibus::route::exact: return "exact conditional";
         case omnibus::route::monte_carlo: return "Monte Carlo";
         case omnibus::route::all_alike: return "none needed (all rates alike)";
+        case omnibus::route::tarone: return "Tarone's test for variation beyond counting";
     }
     return "";
 }
@@ -53,9 +54,9 @@ void range_rows(std::vector<report_row>& rows, const char* kind, double low, dou
 // The rows the route fills: Monte Carlo's draws and 95 % range for the exact
 // p; an exact route's certified bounds only where they differ from p.
 void route_rows(std::vector<report_row>& rows, const omnibus::result& r) {
-    rows[0].label = statistic_label(r.order);
+    rows[0].label = r.used == omnibus::route::tarone ? "statistic: Tarone's z" : statistic_label(r.order);
     rows[0].value = r.statistic;
-    rows[1].value = static_cast<double>(r.df);
+    if (r.used != omnibus::route::tarone) rows[1].value = static_cast<double>(r.df);  // z has none
     rows[2].value = r.p;
     rows[3].value = std::string(route_text(r.used));
     rows[4].value = r.why;

@@ -14,6 +14,7 @@
 #include "tallyrates/core/arguments.hpp"
 #include "tallyrates/core/errors.hpp"
 #include "tallyrates/omnibus/same_rates.hpp"
+#include "tallyrates/omnibus/tarone.hpp"
 #include "tallyrates/core/text.hpp"
 
 namespace tallyrates::omnibus {
@@ -149,6 +150,15 @@ result automatic(result r, const table& t, const options& opt) {
 // Every route, without the memo.
 result same_rates_uncached(const table& t, const options& opt) {
     result r = start(t, opt);
+    if (opt.how == method::tarone) {  // a different question: refused, not p = 1, where it is not defined
+        const auto v = tarone(t.x, t.n);
+        r.used = route::tarone;
+        r.statistic = v.z;
+        r.p = v.p;
+        r.why = "Tarone's test, as asked: do the groups vary more than counting alone explains? One-sided; a small p "
+                "says they do, so intervals and limits that assume independent units are too narrow.";
+        return r;
+    }
     if (t.all_alike()) {
         r.used = route::all_alike;
         r.p = 1.0;
@@ -166,6 +176,7 @@ result same_rates_uncached(const table& t, const options& opt) {
         case method::exact_lr:
         case method::exact_prob: return exact_as_asked(std::move(r), t, opt);
         case method::monte_carlo: return monte_carlo_as_asked(std::move(r), t, opt);
+        case method::tarone:
         case method::automatic: break;
     }
     return automatic(std::move(r), t, opt);

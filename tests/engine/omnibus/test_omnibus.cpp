@@ -16,6 +16,7 @@
 #include "support.hpp"
 #include "tallyrates/core/errors.hpp"
 #include "tallyrates/omnibus/same_rates.hpp"
+#include "tallyrates/omnibus/tarone.hpp"
 #include "tallyrates/omnibus/trend.hpp"
 
 using namespace tallyrates;
@@ -301,4 +302,32 @@ TEST(OmnibusAuto, PicksTheRouteTheRulesSay) {
     const auto big = same_rates(tally({3, 40000, 41000, 39000, 40500}, {5, 80000, 80000, 80000, 80000}), o);
     EXPECT_EQ(big.used, route::monte_carlo);
     EXPECT_GT(big.mc.draws, 999);
+}
+
+TEST(Tarone, ReferenceRows) {
+    // tarone_z, tarone_p: Tarone (1979) recomputed in omnibus.py (exact
+    // fractions, 50-digit mpmath).
+    int checked = 0;
+    for (const auto& r : tallyrates::testing::reference_rows("omnibus.csv", "tarone_")) {
+        const auto v = omnibus::tarone(counts::from_values(r.successes, r.attempts));
+        const double got = r.quantity == "tarone_z" ? v.z : v.p;
+        EXPECT_NEAR(got, r.value, 1e-12 * std::fabs(r.value) + 1e-300) << r.name << " " << r.quantity << " " << r.source;
+        // RATES.SAME.P with "tarone" gives the same p.
+        omnibus::options o;
+        o.how = omnibus::method::tarone;
+        if (r.quantity == "tarone_p") {
+            EXPECT_EQ(omnibus::same_rates(counts::from_values(r.successes, r.attempts), o).p, v.p);
+        }
+        ++checked;
+    }
+    EXPECT_EQ(checked, 6);
+}
+
+TEST(Tarone, NotDefinedIsRefusedWithAReason) {
+    omnibus::options o;
+    o.how = omnibus::method::tarone;
+    TALLYRATES_EXPECT_THROW_SAYING(omnibus::same_rates(tally({1, 0, 1}, {1, 1, 1}), o), invalid_input, "single attempt");
+    TALLYRATES_EXPECT_THROW_SAYING(omnibus::same_rates(tally({5, 7}, {5, 7}), o), invalid_input, "passed");
+    o.how = omnibus::method::pearson;  // the question of one shared rate: p = 1 there
+    EXPECT_EQ(omnibus::same_rates(tally({5, 7}, {5, 7}), o).p, 1.0);
 }

@@ -24,10 +24,11 @@
 //   target the groups are tied by the margins, and the tail is the largest for
 //   which the probability under the multivariate hypergeometric law that any
 //   group is flagged is at most 1 - level: a recursion over the groups and
-//   their running total (limits.cpp), never wider than the Sidak limits of the
-//   same marginals (negative association of the multivariate hypergeometric
-//   law: Joag-Dev & Proschan 1983, Ann Stat 11:286). Past a cap on its work,
-//   the Sidak limits of the marginals, and the table says so.
+//   their running total (limits.cpp). The tail is never below the Sidak tail
+//   of the same marginals, so the limits are never wider than those (a rule
+//   of ours: where the margins would ask for more, the Sidak limits are kept).
+//   Past a cap on its work, judged before it runs, the Sidak limits of the
+//   marginals, and the table says so.
 // - spread "time" (method "normal" only): Laney's (2002, Quality Engineering
 //   14:531) p'-limits for rows in time order: sigma_i times sigma_z, the mean
 //   moving range of z_r = (p_r - c) / sigma_r over consecutive rows divided by
@@ -93,7 +94,7 @@ std::string verdict_word(int verdict);
 // RATES.APART: a header row, one row per position of the range (blank rows
 // blank; a group without attempts named, with "no attempts"), then notes: the
 // fallback to Sidak limits, and a caution when the groups vary more than
-// counting explains (Tarone's test, spread.hpp, p below 0.05 with 10 or more
+// counting explains (Tarone's test, omnibus/tarone.hpp, p below 0.05 with 10 or more
 // groups). Every row has table_columns cells; "" is a blank cell.
 using table_cell = std::variant<double, std::string>;
 inline constexpr std::size_t table_columns = 6;

@@ -17,10 +17,10 @@
 namespace tallyrates::omnibus {
 
 // What the user asked for (functions.md, RATES.SAME.P).
-enum class method { automatic, pearson, lr, exact, exact_lr, exact_prob, monte_carlo };
+enum class method { automatic, pearson, lr, exact, exact_lr, exact_prob, monte_carlo, tarone };
 
 // What was actually computed.
-enum class route { pearson, lr, exact, monte_carlo, all_alike };
+enum class route { pearson, lr, exact, monte_carlo, all_alike, tarone };
 
 // Fixed default seed: same result at every recalculation and on every machine.
 inline constexpr std::uint64_t default_seed = 20260101;
