@@ -5,6 +5,7 @@
 
 #include "../catalog.hpp"
 #include "../shared_arguments.hpp"
+#include "tallyrates/apart/limits.hpp"
 
 namespace tallyrates::catalog {
 
@@ -48,6 +49,19 @@ constexpr std::array bound_args{shared::successes, shared::attempts, shared::i, 
 constexpr std::array table_args{shared::successes, shared::attempts, level, family, target, method, spread,
                                 shared::labels};
 
+constexpr std::array curve_args{
+    shared::successes, shared::attempts, level,
+    argument{"target", "A standard rate to draw the funnel around (0.95 for 95 %); empty: the tally's overall rate.",
+             "none: the tally's overall rate"},
+    argument{"sizes", "How many group sizes the curves are drawn at, from the smallest group's attempts to the "
+                      "largest's (2 to 1000).",
+             static_cast<double>(apart::default_curve_points)}};
+constexpr std::array fit_args{
+    shared::successes, shared::attempts,
+    argument{"part", "\"a\" for the prior's successes (prior_a of the POST functions), \"b\" for its failures "
+                     "(prior_b).",
+             ""}};
+
 constexpr std::array table{
     function{"apartLow", "RATES.APART.LOW",
              "Lower decision limit for the rate of group i, around the whole (the tally's overall rate, or the "
@@ -65,6 +79,24 @@ constexpr std::array table{
              "a note and a caution when the groups vary more than counting explains). Problems with the input "
              "are shown in the first cell. A point outside is a signal to investigate, not a verdict.",
              table_args, true},
+    function{"apartCurve", "RATES.APART.CURVE",
+             "The limits of one group at a time (exact, smoothed between whole counts as Spiegelhalter 2005 does) "
+             "as curves over group size, for a funnel chart: a header row, then one row per size with attempts, "
+             "lower and upper limit. Plot the curves as lines and the groups (attempts, rate) as points: a point "
+             "outside the funnel is a signal to investigate. Enter as an array formula 3 columns wide and sizes "
+             "+ 1 rows high. If the cell shows Err:502, RATES.CHECK on the same ranges says why (a target outside "
+             "0 to 1, sizes outside 2 to 1000, fewer than two groups with attempts and no target, or every unit "
+             "passing or none are the other causes).",
+             curve_args, true},
+    function{"priorFit", "RATES.PRIOR.FIT",
+             "The Beta prior that fits the groups themselves (beta-binomial, largest marginal likelihood, Williams "
+             "1975): put part \"a\" and part \"b\" into prior_a and prior_b of the POST functions, and a short "
+             "run such as a pilot's 10 of 10 is pulled toward what the other lines show. When the groups vary no "
+             "more than counting explains, the fit would grow without end: it stops at a + b = 1,000,000, the "
+             "largest prior the POST functions take. Needs two or more groups with attempts. If the cell shows "
+             "Err:502, RATES.CHECK on the same ranges says why (a part that is not one of the words listed here is "
+             "the other cause).",
+             fit_args},
 };
 
 #undef WHY_502_APART

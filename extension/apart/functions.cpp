@@ -6,6 +6,7 @@
 #include "../guard.hpp"
 #include "keywords.hpp"
 #include "tallyrates/apart/limits.hpp"
+#include "tallyrates/apart/prior_fit.hpp"
 #include "tallyrates/core/errors.hpp"
 #include "tallyrates/core/text.hpp"
 
@@ -75,6 +76,30 @@ array rates::apart(const caller& document, const cells& successes, const cells& 
             rows = {{Any(ou(problem_text(e.what())))}};
         }
         return convert::rows_to_array(rows);
+    });
+}
+
+array rates::apartCurve(const caller& document, const cells& successes, const cells& attempts, const Any& level,
+                        const Any& target, const Any& sizes) {
+    return guarded([&] {
+        const double lv = convert::number(level, "level").value_or(arguments::default_level);
+        const auto goal_rate = convert::number(target, "target");
+        const auto count = arguments::whole_or(convert::number(sizes, "sizes"), apart::default_curve_points,
+                                               static_cast<double>(apart::min_curve_points),
+                                               static_cast<double>(apart::max_curve_points), "sizes");
+        const auto c = convert::counts_of(document, successes, attempts);
+        const auto lines = apart::funnel(c, lv, goal_rate, count);
+        std::vector<std::vector<Any>> rows{convert::texts_to_row(apart::funnel_header(lv, goal_rate))};
+        for (const auto& line : lines) rows.push_back({Any(line[0]), Any(finite(line[1])), Any(finite(line[2]))});
+        return convert::rows_to_array(rows);
+    });
+}
+
+double rates::priorFit(const caller& document, const cells& successes, const cells& attempts, const Any& part) {
+    return guarded([&] {
+        const auto which = arguments::keyword(convert::word(part, "part").value_or(""), keywords::prior_part_word, "part");
+        const auto fit = apart::fit_prior(convert::counts_of(document, successes, attempts));
+        return finite(which == keywords::prior_part::a ? fit.prior.a : fit.prior.b);
     });
 }
 

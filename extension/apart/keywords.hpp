@@ -25,4 +25,11 @@ inline constexpr std::array<arguments::word<apart::spread>, 2> apart_spread{{
     {"time", apart::spread::time},
 }};
 
+// RATES.PRIOR.FIT: which parameter of the fitted prior the cell shows.
+enum class prior_part { a, b };
+inline constexpr std::array<arguments::word<prior_part>, 2> prior_part_word{{
+    {"a", prior_part::a},
+    {"b", prior_part::b},
+}};
+
 }  // namespace tallyrates::keywords

@@ -103,7 +103,8 @@ TEST(Catalog, EveryDefaultIsTheEngines) {
         {"prior_a", bayes::prior{}.a},
         {"prior_b", bayes::prior{}.b},
         {"draws", static_cast<double>(omnibus::options{}.draws)},
-        {"seed", static_cast<double>(omnibus::options{}.seed)}};
+        {"seed", static_cast<double>(omnibus::options{}.seed)},
+        {"sizes", static_cast<double>(apart::default_curve_points)}};
     const pairwise::interval_options interval;
     const pairwise::test_options test;
     const pairwise::table_options table;

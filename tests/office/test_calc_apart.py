@@ -106,5 +106,38 @@ class Errors(SheetCase):
         self.assertGreater(self.value_of("H3"), 0.39)
 
 
+
+class FunnelAndPrior(SheetCase):
+    def test_funnel_curve_matches_the_reference(self):
+        # curve|...: Spiegelhalter (2005) interpolation recomputed with scipy binom.
+        rows = [r for r in harness.reference_rows() if r["case"] == "a_lots" and r["quantity"].startswith("curve|0.998|")]
+        r = self.put_counts(rows[0]["successes"], rows[0]["attempts"])
+        self.sheet.getCellRangeByName("E1:G13").setArrayFormula("RATES.APART.CURVE(%s;0.998;0.95;12)" % r)
+        self.doc.calculateAll()
+        self.assertEqual(self.sheet.getCellRangeByName("E1").getString(), "attempts")
+        for row in rows:
+            _, _, _, _, k, end = row["quantity"].split("|")
+            col = {"n": "E", "low": "F", "high": "G"}[end]
+            got = self.sheet.getCellRangeByName("%s%d" % (col, int(k) + 1)).getValue()
+            self.assertAlmostEqual(got, row["value"], delta=1e-9, msg="%s (%s)" % (row["quantity"], row["source"]))
+
+    def test_prior_fit_matches_scipy(self):
+        want = {r["quantity"]: r["value"] for r in harness.reference_rows() if r["case"] == "f_suppliers"}
+        x = [95, 88, 190, 45, 99, 260, 70, 140, 48, 97, 188, 91, 290, 60, 75, 148, 39, 99, 181, 120]
+        n = [100, 100, 200, 50, 100, 300, 80, 150, 50, 100, 200, 100, 300, 70, 80, 150, 40, 100, 200, 130]
+        r = self.put_counts(x, n)
+        self.formula("H1", '=RATES.PRIOR.FIT(%s;"a")' % r)
+        self.formula("H2", '=RATES.PRIOR.FIT(%s;"B")' % r)
+        # scipy betabinom maximised numerically (apart.py): a flat optimum, 1e-3.
+        self.assertAlmostEqual(self.value_of("H1"), want["prior_fit_a"], delta=1e-3 * want["prior_fit_a"])
+        self.assertAlmostEqual(self.value_of("H2"), want["prior_fit_b"], delta=1e-3 * want["prior_fit_b"])
+        # Fed to a POST function: the fitted prior is accepted as it stands.
+        self.formula("H3", "=RATES.POST.MEAN(%s;1;H1;H2)" % r)
+        self.assertGreater(self.value_of("H3"), 0.9)
+        for text in ('=RATES.PRIOR.FIT(%s;"c")' % r, "=RATES.PRIOR.FIT(%s;1)" % r,
+                     '=RATES.APART.CURVE(%s;;;1)' % r):
+            self.formula("H4", text)
+            self.assertEqual(self.shown("H4"), "Err:502", text)
+
 if __name__ == "__main__":
     harness.main()

@@ -144,7 +144,76 @@ def limit_rows(w):
                     row(w, name, x, n, tag + "|high", high, source)
 
 
-SECTIONS = ['limit_rows']
+# Prior fits (beta-binomial, Williams 1975): invented tallies that vary
+# beyond counting (twelve lots of 8, twenty suppliers of mixed sizes), and
+# the twenty days of a_days, and eight lots more alike than counting allows
+# (the fit runs off: the engine stops at a + b = 10^6).
+FIT_CASES = [
+    ("f_spread_lots", [8, 2, 7, 8, 1, 6, 8, 3, 7, 8, 2, 8], [8] * 12),
+    ("f_suppliers", [95, 88, 190, 45, 99, 260, 70, 140, 48, 97, 188, 91, 290, 60, 75, 148, 39, 99, 181, 120],
+     [100, 100, 200, 50, 100, 300, 80, 150, 50, 100, 200, 100, 300, 70, 80, 150, 40, 100, 200, 130]),
+    ("f_days", CASES[2][1], CASES[2][2]),
+    ("f_even", [47, 48, 47, 48, 47, 48, 47, 48], [50] * 8),
+]
+
+
+def bb_loglik(params, x, n):
+    a, b = math.exp(params[0]), math.exp(params[1])
+    return float(np.sum(scipy.stats.betabinom.logpmf(x, n, a, b)))
+
+
+def fit_rows(w):
+    from scipy.optimize import minimize
+    for name, x, n in FIT_CASES:
+        x, n = np.array(x), np.array(n)
+        p = x.sum() / n.sum()
+        starts = [(math.log(p * m), math.log((1 - p) * m)) for m in (1.0, 10.0, 100.0, 1000.0)]
+        best = None
+        for start in starts:
+            res = minimize(lambda v: -bb_loglik(v, x, n), start, method="Nelder-Mead",
+                           options={"xatol": 1e-10, "fatol": 1e-12, "maxiter": 20000, "maxfev": 40000})
+            if best is None or res.fun < best.fun:
+                best = res
+        a, b = math.exp(best.x[0]), math.exp(best.x[1])
+        source = SCIPY + " betabinom.logpmf maximised by optimize.minimize (Nelder-Mead, four starts)"
+        if a + b > 1e6:  # no spread beyond counting: the fit runs off; the engine stops at a + b = 10^6
+            row(w, name, list(x), list(n), "prior_fit_capped", 1.0, source + ": a + b beyond 10^6")
+            row(w, name, list(x), list(n), "prior_fit_mean", p, "the pooled rate (the mean of a fit that runs off)")
+            continue
+        row(w, name, list(x), list(n), "prior_fit_a", a, source)
+        row(w, name, list(x), list(n), "prior_fit_b", b, source)
+        row(w, name, list(x), list(n), "prior_fit_loglik", -best.fun, source + ": the log-likelihood at the best")
+
+
+def spiegelhalter(ni, c, p):
+    """Spiegelhalter (2005), appendix (from memory [M]): r the smallest count
+    with F(r) >= p, alpha = (F(r) - p) / P(r), the limit (r - alpha) / n."""
+    xs = np.arange(ni + 1)
+    cdf = scipy.stats.binom.cdf(xs, ni, c)
+    r = int(xs[np.argmax(cdf >= p)])
+    alpha = (cdf[r] - p) / scipy.stats.binom.pmf(r, ni, c)
+    return min(1.0, max(0.0, (r - alpha) / ni))
+
+
+def funnel_rows(w):
+    """RATES.APART.CURVE: the ovens around their own rate and the lots
+    around a target of 0.95, 12 sizes each, levels 0.95 and 0.998."""
+    for name, x, n, target in (("a_ovens", CASES[0][1], CASES[0][2], None), ("a_lots", CASES[1][1], CASES[1][2], 0.95)):
+        c = target if target is not None else sum(x) / sum(n)
+        for lv in ("0.95", "0.998"):
+            tail = (1 - float(lv)) / 2
+            lo, hi = math.log(min(n)), math.log(max(n))
+            for k in range(12):
+                ni = int(round(math.exp(lo + k / 11 * (hi - lo))))
+                for end, p in (("low", tail), ("high", 1 - tail)):
+                    row(w, name, x, n, "curve|%s|%s|12|%d|%s" % (lv, "none" if target is None else repr(target), k + 1,
+                                                                end),
+                        spiegelhalter(ni, c, p), SCIPY + " binom.cdf / binom.pmf, Spiegelhalter (2005) interpolation")
+                row(w, name, x, n, "curve|%s|%s|12|%d|n" % (lv, "none" if target is None else repr(target), k + 1), ni,
+                    "the k-th of 12 sizes evenly in log n, rounded")
+
+
+SECTIONS = ['limit_rows', 'fit_rows', 'funnel_rows']
 
 
 if __name__ == "__main__":

@@ -356,3 +356,59 @@ std::vector<std::vector<table_cell>> table(const counts& c, const options& o) {
 }
 
 }  // namespace tallyrates::apart
+
+namespace tallyrates::apart {
+
+namespace {
+
+// Spiegelhalter's interpolated limit at probability p for n units at rate c.
+double interpolated(std::int64_t n, double c, double p) {
+    const double nd = static_cast<double>(n);
+    if (c <= 0) return 0.0;
+    if (c >= 1) return 1.0;
+    const boost::math::binomial_distribution<double> law(nd, c);
+    // r: the smallest count with P(X <= r) >= p (the one-group search's lower count).
+    const double r = binomial_counts(n, c, p).low;
+    const double at = boost::math::cdf(law, r), mass = boost::math::pdf(law, r);
+    const double alpha = mass > 0 ? (at - p) / mass : 0.0;
+    return std::clamp((r - alpha) / nd, 0.0, 1.0);
+}
+
+}  // namespace
+
+std::vector<std::array<double, 3>> funnel(const counts& c, double level, std::optional<double> target,
+                                          std::int64_t points) {
+    level = arguments::level(level, "level");
+    points = arguments::whole(static_cast<double>(points), static_cast<double>(min_curve_points),
+                              static_cast<double>(max_curve_points), "sizes");
+    options o;
+    o.level = level;
+    o.together = family::each;
+    o.target = target;
+    o.how = method::exact;
+    const auto res = limits(c, o);  // the checks and the centre, as the table's
+    std::int64_t smallest = res.rows.front().attempts, largest = smallest;
+    for (const auto& row : res.rows) {
+        smallest = std::min(smallest, row.attempts);
+        largest = std::max(largest, row.attempts);
+    }
+    const double tail = (1 - level) / 2, from = std::log(static_cast<double>(smallest)),
+                 to = std::log(static_cast<double>(largest));
+    std::vector<std::array<double, 3>> out;
+    for (std::int64_t k = 0; k < points; ++k) {
+        const double t = points == 1 ? 0.0 : static_cast<double>(k) / static_cast<double>(points - 1);
+        const auto n = std::clamp(static_cast<std::int64_t>(std::llround(std::exp(from + t * (to - from)))), smallest,
+                                  largest);
+        out.push_back({static_cast<double>(n), interpolated(n, res.centre, tail), interpolated(n, res.centre, 1 - tail)});
+    }
+    return out;
+}
+
+std::vector<std::string> funnel_header(double level, std::optional<double> target) {
+    const std::string pct = format_short(level * 100) + " %";
+    const std::string around = target ? "around the target " + format_short(*target * 100) + " %" : "around the whole";
+    return {"attempts", "lower limit (" + pct + ", each group, " + around + ")",
+            "upper limit (" + pct + ", each group, " + around + ")"};
+}
+
+}  // namespace tallyrates::apart

@@ -14,6 +14,7 @@
 #include "reference.hpp"
 #include "support.hpp"
 #include "tallyrates/apart/limits.hpp"
+#include "tallyrates/apart/prior_fit.hpp"
 #include "tallyrates/core/errors.hpp"
 
 using namespace tallyrates;
@@ -93,4 +94,65 @@ TEST(Apart, LargeTalliesFallBackOrRefuseAtOnce) {
     // Counts of 10^13: too many marginal values to store; Err:523 at once.
     EXPECT_THROW(apart::limits(tally({4000000000000, 5000000000000}, {10000000000000, 10000000000000}), {}),
                  budget_exceeded);
+}
+
+TEST(PriorFit, ReferenceRows) {
+    // prior_fit_a / _b: scipy betabinom.logpmf maximised numerically
+    // (apart.py); the optimum is flat, so the parameters agree to 1e-3 and
+    // the engine's likelihood is at least scipy's optimum's.
+    std::map<std::string, std::map<std::string, double>> want;
+    std::map<std::string, counts> tallies;
+    for (const auto& r : reference_rows("apart.csv", "prior_fit_")) {
+        want[r.name][r.quantity] = r.value;
+        tallies.emplace(r.name, counts::from_values(r.successes, r.attempts));
+    }
+    ASSERT_EQ(want.size(), 4u);
+    for (const auto& [name, q] : want) {
+        const auto& c = tallies.at(name);
+        const auto fit = apart::fit_prior(c);
+        if (q.contains("prior_fit_capped")) {
+            EXPECT_TRUE(fit.at_cap) << name;
+            EXPECT_NEAR(fit.prior.a + fit.prior.b, apart::max_total, 1e-6 * apart::max_total) << name;
+            EXPECT_NEAR(fit.prior.a / (fit.prior.a + fit.prior.b), q.at("prior_fit_mean"), 1e-4) << name;
+            continue;
+        }
+        EXPECT_FALSE(fit.at_cap) << name;
+        EXPECT_NEAR(fit.prior.a, q.at("prior_fit_a"), 1e-3 * q.at("prior_fit_a")) << name;
+        EXPECT_NEAR(fit.prior.b, q.at("prior_fit_b"), 1e-3 * q.at("prior_fit_b")) << name;
+        EXPECT_GE(fit.log_likelihood,
+                  apart::beta_binomial_log_likelihood(c, q.at("prior_fit_a"), q.at("prior_fit_b")) - 1e-9)
+            << name;
+    }
+}
+
+TEST(PriorFit, EveryValidTallyGetsAPrior) {
+    // Never an error for two or more groups with attempts: all passing, all
+    // failing, single units, one group huge (common practice, no source).
+    for (const auto& c : {tally({10, 12}, {10, 12}), tally({0, 0, 0}, {5, 9, 40}), tally({1, 0}, {1, 1}),
+                          tally({999990, 3}, {1000000, 4}), tally({14, 286, 271, 233}, {14, 300, 290, 260})}) {
+        const auto fit = apart::fit_prior(c);
+        EXPECT_GE(fit.prior.a, bayes::min_prior);
+        EXPECT_GE(fit.prior.b, bayes::min_prior);
+        EXPECT_LE(fit.prior.a + fit.prior.b, apart::max_total * (1 + 1e-12));
+    }
+    EXPECT_THROW(apart::fit_prior(tally({3}, {9})), invalid_input);
+}
+
+TEST(Funnel, ReferenceRows) {
+    // curve|level|target|points|k|end: Spiegelhalter's (2005) interpolated
+    // exact limits recomputed with scipy binom (apart.py).
+    int checked = 0;
+    for (const auto& r : reference_rows("apart.csv", "curve|")) {
+        const auto f = fields(r.quantity);
+        ASSERT_EQ(f.size(), 6u);
+        std::optional<double> target;
+        if (f[2] != "none") target = std::stod(f[2]);
+        const auto rows = apart::funnel(counts::from_values(r.successes, r.attempts), std::stod(f[1]), target,
+                                        std::stoll(f[3]));
+        const auto& line = rows.at(std::stoul(f[4]) - 1);
+        const double got = f[5] == "n" ? line[0] : (f[5] == "low" ? line[1] : line[2]);
+        EXPECT_NEAR(got, r.value, 1e-9) << r.name << " " << r.quantity << " " << r.source;
+        ++checked;
+    }
+    EXPECT_EQ(checked, 2 * 2 * 12 * 3);
 }

@@ -35,6 +35,7 @@
 //   1.128 (d2 for ranges of two).
 #pragma once
 
+#include <array>
 #include <cstddef>
 #include <cstdint>
 #include <optional>
@@ -101,5 +102,18 @@ inline constexpr std::size_t table_columns = 6;
 // Groups from which the caution about extra variation is given.
 inline constexpr std::size_t min_groups_caution = 10;
 std::vector<std::vector<table_cell>> table(const counts& c, const options& o);
+
+// RATES.APART.CURVE: the one-group limits (family "each") around the target,
+// or the tally's overall rate, as smooth curves over group size, for a funnel
+// chart with the groups as points: `points` sizes n from the smallest to the
+// largest group's attempts, evenly in log n and rounded to whole units, each
+// with {n, lower, upper}. Exact binomial limits with Spiegelhalter's (2005,
+// Stat Med 24:1185, appendix) interpolation between whole counts: with r the
+// smallest count whose P(X <= r) reaches p, the limit is (r - alpha) / n,
+// alpha = (P(X <= r) - p) / P(X = r), at p = tail and p = 1 - tail.
+inline constexpr std::int64_t default_curve_points = 50, min_curve_points = 2, max_curve_points = 1000;
+std::vector<std::array<double, 3>> funnel(const counts& c, double level, std::optional<double> target,
+                                          std::int64_t points);
+std::vector<std::string> funnel_header(double level, std::optional<double> target);
 
 }  // namespace tallyrates::apart
