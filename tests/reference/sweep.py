@@ -52,6 +52,7 @@ References (each row names its own):
 """
 import csv
 import math
+from fractions import Fraction
 import sys
 import warnings
 
@@ -59,7 +60,6 @@ import mpmath
 import numpy as np
 import scipy
 import scipy.optimize
-import scipy.special as sp
 import scipy.stats
 import statsmodels
 from scipy.stats import chi2_contingency
@@ -68,7 +68,8 @@ from statsmodels.stats.multitest import multipletests
 from statsmodels.stats.proportion import confint_proportions_2indep, proportion_confint
 
 sys.path.insert(0, __file__.rsplit("/", 1)[0])
-from pairs import SCORE_SOURCE, fm_p, mn_interval, pair_p_values  # noqa: E402  (independent implementations)
+from pairs import SCORE_SOURCE, fm_p, mn_interval, pair_p_values  # noqa: E402
+from apart import exact_joint_limits as apart_joint, normal_limits as apart_normal  # noqa: E402  (independent implementations)
 
 SCIPY = "scipy " + scipy.__version__
 STATSMODELS = "statsmodels " + statsmodels.__version__
@@ -635,6 +636,61 @@ def claims_rows(w):
             out(w, "claims", name, x, n, "diffsided_high|%d|%d|%r" % (i + 1, j + 1, lv), hi, src)
 
 
+def apart_rows(w):
+    """Decision limits on random tallies of mixed sizes (apart.py's
+    formulas: scipy norm for the normal limits, Laney's sigma_z in numpy,
+    scipy binom.ppf / isf checked against cdf and sf for the exact limits
+    against a standard, every table enumerated for the exact limits of small
+    tallies without one) and Tarone's z in exact fractions."""
+    for case in range(120):
+        x, n = tally(2, 12)
+        keep = [k for k in range(len(n)) if n[k] > 0]
+        x, n = [x[k] for k in keep], [n[k] for k in keep]
+        if len(x) < 2 or sum(x) in (0, sum(n)):
+            continue
+        name = "sweep_apart_%d" % case
+        lv = float(RNG.choice([0.9, 0.95, 0.99, 0.9973, 0.999]))
+        target = None if case % 3 else float(round(RNG.uniform(0.5, 0.999), 3))
+        family = ("all", "each")[case % 2]
+        spread = "time" if case % 5 == 0 else "none"
+        tag = "|%s|%s|%s|%r" % (family, "none" if target is None else repr(target), spread, lv)
+        lims = apart_normal(x, n, lv, family, target, spread)
+        i = int(RNG.integers(len(x)))
+        src = SCIPY + " norm.isf; Nelson (1982) / p-chart sigma" + ("; Laney (2002) in numpy" if spread == "time" else "")
+        out(w, "apart", name, x, n, "normal" + tag + "|%d|low" % (i + 1), lims[i][0], src)
+        out(w, "apart", name, x, n, "normal" + tag + "|%d|high" % (i + 1), lims[i][1], src)
+        if target is not None or family == "each":
+            c = target if target is not None else sum(x) / sum(n)
+            tail = (1 - lv) / 2 if family == "each" else -math.expm1(math.log(lv) / len(x)) / 2
+            law = scipy.stats.binom(n[i], c)
+            a = int(law.ppf(tail))
+            while a > 0 and law.cdf(a - 1) >= tail:
+                a -= 1
+            while law.cdf(a) < tail:
+                a += 1
+            b = int(law.isf(tail)) + 1
+            while b > 0 and law.sf(b - 1) < tail:
+                b -= 1
+            while b < n[i] and law.sf(b) >= tail:
+                b += 1
+            src = SCIPY + " binom.ppf / isf, checked with cdf and sf"
+            out(w, "apart", name, x, n, "exact|%s|%s|none|%r|%d|low" % (family, "none" if target is None else repr(target),
+                                                                      lv, i + 1), a / n[i], src)
+            out(w, "apart", name, x, n, "exact|%s|%s|none|%r|%d|high" % (family, "none" if target is None else repr(target),
+                                                                       lv, i + 1), b / n[i], src)
+        elif len(x) <= 3 and max(n) <= 40:
+            lims = apart_joint(x, n, lv)
+            src = SCIPY + " hypergeom marginals; every table with the margins enumerated (apart.py)"
+            for g in range(len(x)):
+                out(w, "apart", name, x, n, "exact|all|none|none|%r|%d|low" % (lv, g + 1), lims[g][0], src)
+                out(w, "apart", name, x, n, "exact|all|none|none|%r|%d|high" % (lv, g + 1), lims[g][1], src)
+        if sum(k * (k - 1) for k in n) > 0:
+            p = Fraction(sum(x), sum(n))
+            num = sum((xi - ni * p) ** 2 for xi, ni in zip(x, n)) / (p * (1 - p)) - sum(n)
+            z = float(num) / math.sqrt(2 * sum(k * (k - 1) for k in n))
+            out(w, "apart", name, x, n, "tarone_z", z, "Tarone (1979) formula in exact fractions")
+
+
 def main():
     # Laws far apart underflow to 0 in scipy's Boost calls: the warning is noise.
     np.seterr(all="ignore")
@@ -642,7 +698,7 @@ def main():
     w = csv.writer(sys.stdout, lineterminator="\n")
     w.writerow(["family", "case", "successes", "attempts", "quantity", "value", "source"])
     for section in (bayes_rows, pairs_rows, omnibus_rows, planning_rows, family_rows, hpd_rows, extra_planning_rows,
-                    more_and_ratio_rows, claims_rows):
+                    more_and_ratio_rows, claims_rows, apart_rows):
         section(w)
 
 

@@ -17,6 +17,8 @@
 #include "tallyrates/bayes/comparison.hpp"
 #include "tallyrates/bayes/law.hpp"
 #include "tallyrates/core/errors.hpp"
+#include "tallyrates/apart/limits.hpp"
+#include "tallyrates/apart/prior_fit.hpp"
 #include "tallyrates/pairs/margin.hpp"
 #include "tallyrates/pairs/one_rate.hpp"
 #include "tallyrates/pairs/pairwise.hpp"
@@ -179,5 +181,51 @@ TEST(Extremes, ClaimsAnswerOrRefuse) {
             }
         }
     std::cout << "claims extremes: " << calls << " calls, " << answered << " answered, slowest " << worst.ms << " ms ("
+              << worst.what << ")\n";
+}
+
+TEST(Extremes, ApartAnswersOrRefuses) {
+    // Decision limits, the funnel and the fitted prior at the ends of what a
+    // sheet holds: groups of 1 to 10^15 units, 0 % and 100 %, targets at the
+    // ends, levels at both ends; an answer in [0, 1] (the prior within its
+    // range) or an engine error, never a hang.
+    const std::vector<std::pair<std::vector<std::int64_t>, std::vector<std::int64_t>>> tallies{
+        {{0, 1}, {1, 1}},
+        {{14, 286}, {14, 300}},
+        {{0, 0, 5}, {10, 1000, 1000000}},
+        {{999999999, 1000000000000}, {1000000000, 1000000000000}},
+        {{1, 1000000000000000 - 1}, {1000000000000000, 1000000000000000}},
+        {{3, 7, 2, 9, 4, 6, 8, 1, 5, 10, 0, 2}, {10, 10, 10, 10, 10, 10, 10, 10, 10, 10, 10, 10}}};
+    const std::optional<double> targets[] = {std::nullopt, 0.0, tiny, 0.5, 1 - tiny, 1.0};
+    for (const auto& [x, n] : tallies) {
+        for (double c : levels)
+            for (const auto& t : targets)
+                for (auto how : {apart::method::exact, apart::method::normal})
+                    for (auto fam : {apart::family::all, apart::family::each}) {
+                        apart::options o;
+                        o.level = c;
+                        o.target = t;
+                        o.how = how;
+                        o.together = fam;
+                        answer_or_error("apart limits, level " + std::to_string(c), [&] {
+                            const auto res = apart::limits(counts::from_values(x, n), o);
+                            double low = 1;
+                            for (const auto& row : res.rows) {
+                                EXPECT_LE(row.limits.low, row.limits.high);
+                                low = std::min(low, row.limits.low);
+                            }
+                            return low;
+                        }, 0, 1);
+                        if (how == apart::method::exact && fam == apart::family::each)
+                            answer_or_error("funnel, level " + std::to_string(c), [&] {
+                                return apart::funnel(counts::from_values(x, n), c, t, 20).front()[1];
+                            }, 0, 1);
+                    }
+        answer_or_error("prior fit", [&] {
+            const auto fit = apart::fit_prior(counts::from_values(x, n));
+            return (fit.prior.a + fit.prior.b) / apart::max_total;
+        }, 0, 1 + 1e-12);
+    }
+    std::cout << "apart extremes: " << calls << " calls, " << answered << " answered, slowest " << worst.ms << " ms ("
               << worst.what << ")\n";
 }

@@ -15,6 +15,7 @@
 #include <sstream>
 
 #include "reference.hpp"
+#include "tallyrates/apart/limits.hpp"
 #include "tallyrates/bayes/across.hpp"
 #include "tallyrates/bayes/comparison.hpp"
 #include "tallyrates/bayes/law.hpp"
@@ -26,6 +27,7 @@
 #include "tallyrates/pairs/pairwise.hpp"
 #include "tallyrates/planning/planning.hpp"
 #include "tallyrates/omnibus/trend.hpp"
+#include "tallyrates/omnibus/tarone.hpp"
 #include "support.hpp"
 
 using namespace tallyrates;
@@ -340,6 +342,44 @@ TEST(Sweep, ClaimsAgainstMpmathAndScipy) {
     EXPECT_GE(checked["margin"], 120);
     EXPECT_GE(checked["sided_low"], 120);
     EXPECT_GE(checked["diffsided_low"], 25);
+}
+
+TEST(Sweep, ApartAgainstScipyAndEnumeration) {
+    // Decision limits on random tallies of mixed sizes: normal limits from
+    // scipy norm, exact limits against a standard from scipy binom, exact
+    // limits of every group at once by enumerating every table (small
+    // tallies), Tarone's z in exact fractions.
+    const auto rows = sweep_rows("apart");
+    std::map<std::string, int> checked;
+    for (const auto& r : rows) {
+        const auto f = fields(r.quantity);
+        const auto c = counts::from_values(r.x, r.n);
+        if (f[0] == "tarone_z") {
+            // The numerator is a difference of two sums of size N: at 10^6 and
+            // more units near 100 % about 1e-10 of z is lost to cancellation.
+            expect_within(omnibus::tarone(c).z, r.value, 1e-12, 1e-9, r);
+            ++checked[f[0]];
+            continue;
+        }
+        ASSERT_EQ(f.size(), 7u) << r.quantity;
+        apart::options o;
+        o.how = f[0] == "normal" ? apart::method::normal : apart::method::exact;
+        o.together = f[1] == "each" ? apart::family::each : apart::family::all;
+        if (f[2] != "none") o.target = std::stod(f[2]);
+        o.variation = f[3] == "time" ? apart::spread::time : apart::spread::none;
+        o.level = std::stod(f[4]);
+        const auto res = apart::limits(c, o);
+        const auto& lim = res.rows.at(std::stoul(f[5]) - 1).limits;
+        // Exact limits are whole counts over n (equal); normal ones formulas.
+        expect_within(f[6] == "low" ? lim.low : lim.high, r.value, o.how == apart::method::exact ? 0.0 : 1e-12, 1e-12,
+                      r);
+        ++checked[f[0] + "|" + f[1]];
+    }
+    std::cout << "apart sweep: " << count_cases(rows) << " tallies, " << rows.size() << " rows\n";
+    EXPECT_GE(checked["normal|all"], 100);
+    EXPECT_GE(checked["exact|each"], 100);
+    EXPECT_GE(checked["exact|all"], 30);
+    EXPECT_GE(checked["tarone_z"], 100);
 }
 
 TEST(Sweep, BayesianInvariants) {
