@@ -169,6 +169,101 @@ def add_curves_sheet(doc):
     sheet.setPrintAreas((Area(1, 0, 0, 12, 30),))
 
 
+DAYS = [  # oven A, boards passing and run per day over three weeks (invented)
+    (212, 220), (195, 204), (229, 238), (201, 210), (188, 197), (224, 232), (207, 219), (216, 224), (178, 201),
+    (219, 228), (203, 211), (226, 236), (199, 207), (214, 222), (208, 218),
+]
+LIMITS_TOP, DAYS_TOP = 5, 18
+
+
+def symbols_only(chart, styles):
+    """No connecting lines: each oven or day has limits of its own, so a line
+    between two of them would draw limits that hold for neither. `styles`:
+    the com.sun.star.chart.ChartSymbolType of each series (8 circle, 13
+    horizontal bar)."""
+    chart.Diagram.Lines = False
+    for k, style in enumerate(styles):
+        series = chart.Diagram.getDataRowProperties(k)
+        series.SymbolType = style
+
+
+def legend_below(chart):
+    """The series' names under the plot, where long limit titles fit."""
+    import uno
+    chart.HasLegend = True
+    chart.Legend.Alignment = uno.Enum("com.sun.star.chart.ChartLegendPosition", "BOTTOM")
+
+
+def fixed_axis(axis, low, high):
+    axis.AutoMin, axis.AutoMax = False, False
+    axis.Min, axis.Max = low, high
+
+
+def add_limits_sheet(doc):
+    """A third sheet: which ovens stand apart from the whole (RATES.APART,
+    exact limits for all four ovens at once) and a p-chart of oven A's days
+    (RATES.APART with family "each", level 0.9973, normal limits), each with
+    a chart of points against their own limits."""
+    doc.Sheets.insertNewByName("Decision limits", 2)
+    sheet = doc.Sheets.getByName("Decision limits")
+    cell = sheet.getCellRangeByName
+    cell("A1").setString("Which ovens stand apart from the whole? Decision limits (exact, 95 % for all four ovens "
+                         "at once, around the overall pass rate)")
+    cell("A1").CharWeight = 150
+    cell("A2").setString("An oven outside its limits is unlikely to share the others' pass rate: a signal to "
+                         "investigate, not a verdict on the oven. Limits assume independent boards.")
+    # The range's 7 rows plus 3: the header, the rows, room for a note and a caution.
+    cell("A%d:F%d" % (LIMITS_TOP, LIMITS_TOP + 9)).setArrayFormula(
+        "RATES.APART($'Oven trial'.B5:B11;$'Oven trial'.C5:C11;;;;;;$'Oven trial'.A5:A11)")
+    cell("C%d:E%d" % (LIMITS_TOP + 1, LIMITS_TOP + 9)).NumberFormat = number_format(doc, "0.0%")
+    cell("A%d:A%d" % (LIMITS_TOP + 8, LIMITS_TOP + 9)).IsTextWrapped = True  # a note or caution, when there is one
+    cell("A%d:F%d" % (LIMITS_TOP, LIMITS_TOP)).CharWeight = 150
+    cell("A%d:F%d" % (LIMITS_TOP, LIMITS_TOP)).IsTextWrapped = True
+    cell("A%d" % (DAYS_TOP - 2)).setString("Oven A day by day: p-chart (three-sigma limits, level 0.9973, each day "
+                                           "against the three weeks' pass rate)")
+    cell("A%d" % (DAYS_TOP - 2)).CharWeight = 150
+    for col, text in zip("HI", ["Boards passing", "Boards run"]):
+        heading(cell("%s%d" % (col, DAYS_TOP)), text)
+    for k, (x, n) in enumerate(DAYS):
+        cell("H%d" % (DAYS_TOP + 1 + k)).setValue(x)
+        cell("I%d" % (DAYS_TOP + 1 + k)).setValue(n)
+    last = DAYS_TOP + len(DAYS)
+    days = "H%d:H%d;I%d:I%d" % (DAYS_TOP + 1, last, DAYS_TOP + 1, last)
+    cell("A%d:F%d" % (DAYS_TOP, last + 2)).setArrayFormula('RATES.APART(%s;0.9973;"each";;"normal")' % days)
+    cell("A%d:A%d" % (last + 1, last + 2)).IsTextWrapped = True
+    cell("C%d:E%d" % (DAYS_TOP + 1, last)).NumberFormat = number_format(doc, "0.0%")
+    cell("A%d:F%d" % (DAYS_TOP, DAYS_TOP)).CharWeight = 150
+    cell("A%d:F%d" % (DAYS_TOP, DAYS_TOP)).IsTextWrapped = True
+    for col, width in zip("ABCDEFGHI", [7000, 2000, 2000, 3600, 3600, 2000, 600, 2400, 2400]):
+        sheet.Columns.getByName(col).Width = width
+    # Charts: rates as dots, limits as short bars, no lines between groups.
+    at = cell("K1").Position
+    # The header row (its titles name the series), then the seven rows of the
+    # tally, so an oven typed in a spare row appears.
+    names = CellRangeAddress(2, 0, LIMITS_TOP - 1, 0, LIMITS_TOP + 6)
+    values = CellRangeAddress(2, 2, LIMITS_TOP - 1, 4, LIMITS_TOP + 6)  # rate, lower, upper
+    chart = titled_chart(sheet, "OvenLimits", Rectangle(at.X, at.Y, 16000, 10500), (names, values), True, None,
+                         ("Pass rate of each oven against its decision limits", "Oven", "Pass rate"))
+    chart.Diagram = chart.createInstance("com.sun.star.chart.LineDiagram")
+    symbols_only(chart, [8, 13, 13])
+    legend_below(chart)
+    fixed_axis(chart.Diagram.YAxis, 0.5, 1.0)
+    at = cell("K%d" % DAYS_TOP).Position
+    names = CellRangeAddress(2, 0, DAYS_TOP - 1, 0, last - 1)  # the days' numbers, 1 to 15
+    values = CellRangeAddress(2, 2, DAYS_TOP - 1, 4, last - 1)
+    chart = titled_chart(sheet, "DailyPChart", Rectangle(at.X, at.Y, 16000, 10500), (names, values), True, None,
+                         ("p-chart of oven A, day by day", "Day", "Pass rate"))
+    chart.Diagram = chart.createInstance("com.sun.star.chart.LineDiagram")
+    symbols_only(chart, [8, 13, 13])
+    legend_below(chart)
+    fixed_axis(chart.Diagram.YAxis, 0.8, 1.0)
+    style = doc.StyleFamilies.getByName("PageStyles").getByName(sheet.PageStyle)
+    style.IsLandscape = True
+    style.Width, style.Height = max(style.Width, style.Height), min(style.Width, style.Height)
+    style.ScaleToPagesX = 1
+    style.ScaleToPagesY = 1
+
+
 def main():
     office = lo.Office(sys.argv[1]).install().start()
     try:
@@ -295,6 +390,7 @@ def main():
         y_axis.AutoMin, y_axis.AutoMax = False, False
         y_axis.Min, y_axis.Max = 0.5, 1.0
         add_curves_sheet(doc)
+        add_limits_sheet(doc)
         doc.calculateAll()
         out = os.path.join(office.workdir, "reflow-oven-trial.fods")
         lo.save_as(doc, out, "OpenDocument Spreadsheet Flat XML")

@@ -66,6 +66,16 @@ def main():
             row = [lo.cell_text(curves.getCellByPosition(c, r - 1)) for c in range(6)]
             print("  %-22s %14s %11s %11s %9s %15s" % tuple(row))
             errors += ["Posterior curves row %d" % r for shown in row if shown.startswith("Err:")]
+        limits = doc.Sheets.getByName("Decision limits")
+        print()
+        print("  " + limits.getCellRangeByName("A1").getString())
+        for r in range(5, 10):
+            row = [lo.cell_text(limits.getCellByPosition(c, r - 1)) for c in range(6)]
+            print("  %-22s %9s %8s %12s %12s %8s" % tuple(v[:22] for v in row))
+            errors += ["Decision limits row %d" % r for shown in row if shown.startswith("Err:")]
+        below = [lo.cell_text(limits.getCellByPosition(0, r - 1)) for r in range(19, 34)
+                 if lo.cell_text(limits.getCellByPosition(5, r - 1)) != "within"]
+        print("  p-chart of oven A: days outside the limits:", ", ".join(below) or "none")
         pdf = os.path.join(office.workdir, "reflow-oven-trial.pdf")
         lo.save_as(doc, pdf, "calc_pdf_Export")
         doc.close(True)

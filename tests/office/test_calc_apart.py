@@ -81,8 +81,8 @@ class Table(SheetCase):
         r = self.put_counts(x, [200] * 12)
         self.sheet.getCellRangeByName("E1:J16").setArrayFormula("RATES.APART(%s;;;;\"normal\")" % r)
         self.doc.calculateAll()
-        self.assertEqual(self.sheet.getCellRangeByName("E14").getString(), "caution")
-        self.assertIn("Tarone", self.sheet.getCellRangeByName("F14").getString())
+        self.assertTrue(self.sheet.getCellRangeByName("E14").getString().startswith("caution: "))
+        self.assertIn("Tarone", self.sheet.getCellRangeByName("E14").getString())
 
     def test_problems_show_in_the_first_cell(self):
         r = self.put_counts([10, 10], [10, 10])

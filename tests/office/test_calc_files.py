@@ -149,6 +149,20 @@ class SampleWorkbook(SheetCase):
         # formula, common practice, no single source).
         self.assertEqual(trial.getCellRangeByName("G67").getValue(), 50)
         self.assertEqual(trial.getCellRangeByName("G65").getValue(), 59)
+        # The decision limits sheet: two charts, no errors; oven C below the
+        # exact limits for all ovens at once (90.0 %, the enumeration row
+        # of apart.csv), day 9 of oven A below its p-chart limit.
+        limits = self.doc.Sheets.getByName("Decision limits")
+        self.assertEqual(limits.Charts.getCount(), 2)
+        used = limits.createCursor()
+        used.gotoEndOfUsedArea(False)
+        end = used.getRangeAddress()
+        errors = [(c, k) for k in range(end.EndRow + 1) for c in range(end.EndColumn + 1)
+                  if limits.getCellByPosition(c, k).getError()]
+        self.assertEqual(errors, [])
+        self.assertEqual(limits.getCellRangeByName("F8").getString(), "below")
+        self.assertEqual(limits.getCellRangeByName("D8").getValue(), 0.9)
+        self.assertEqual(limits.getCellRangeByName("F27").getString(), "below")
 
 
 if __name__ == "__main__":

@@ -335,20 +335,18 @@ std::vector<std::vector<table_cell>> table(const counts& c, const options& o) {
                        verdict_word(row.verdict)});
     }
     if (res.fell_back)
-        out.push_back({std::string("note"),
-                       std::string("Exact limits for every group at once pass their cap on work here: these are the "
-                                   "Sidak limits of the groups' exact laws, a little wider."),
-                       std::string(), std::string(), std::string(), std::string()});
+        out.push_back({std::string("note: exact limits for every group at once pass their cap on work here; these are "
+                                   "the Sidak limits of the groups' exact laws, a little wider."),
+                       std::string(), std::string(), std::string(), std::string(), std::string()});
     if (res.rows.size() >= min_groups_caution) {
         try {
             const auto v = omnibus::tarone(c);
             if (v.p < 0.05)
-                out.push_back({std::string("caution"),
-                               "The groups vary more than counting alone explains (Tarone's test, p = " +
+                out.push_back({"caution: the groups vary more than counting alone explains (Tarone's test, p = " +
                                    format_short(v.p) +
-                                   "): these limits assume independent units and will flag too many groups. For "
+                                   "); these limits assume independent units and will flag too many groups. For "
                                    "rows in time order, spread \"time\" widens them (Laney).",
-                               std::string(), std::string(), std::string(), std::string()});
+                               std::string(), std::string(), std::string(), std::string(), std::string()});
         } catch (const invalid_input&) {
         }
     }

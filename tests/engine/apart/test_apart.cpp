@@ -156,3 +156,22 @@ TEST(Funnel, ReferenceRows) {
     }
     EXPECT_EQ(checked, 2 * 2 * 12 * 3);
 }
+
+TEST(Apart, ThirtySuppliersAreExactNotTheFallback) {
+    // The README's benchmark tally (bench_apart.cpp): 30 groups of 40 to 620
+    // attempts. The recursion runs (no fallback) and its tail lies between
+    // the Sidak tail and the one-group tail; a group at 88 % stands below.
+    std::vector<std::int64_t> x, n;
+    for (std::size_t g = 0; g < 30; ++g) {
+        const auto attempts = static_cast<std::int64_t>(40 + (g * 97) % 581);
+        const double rate = g == 3 ? 0.88 : 0.93 + 0.04 * static_cast<double>((g * 7) % 5) / 4;
+        n.push_back(attempts);
+        x.push_back(static_cast<std::int64_t>(rate * static_cast<double>(attempts)));
+    }
+    const auto res = apart::limits(counts::from_values(x, n), {});
+    EXPECT_FALSE(res.fell_back);
+    EXPECT_GE(res.tail, -std::expm1(std::log(0.95) / 30) / 2);
+    EXPECT_LE(res.tail, 0.025);
+    EXPECT_EQ(res.rows[3].verdict, -1);
+    std::printf("30 suppliers: tail %.6g (Sidak %.6g)\n", res.tail, -std::expm1(std::log(0.95) / 30) / 2);
+}
