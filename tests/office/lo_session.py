@@ -129,6 +129,26 @@ class Office:
     def alive(self):
         return self.proc is not None and self.proc.poll() is None
 
+    def resident_kb(self):
+        """Resident memory of the office process itself (soffice.bin, started
+        by the soffice script for this profile), from /proc."""
+        marker = "UserInstallation=" + file_url(self.profile)
+        for pid in os.listdir("/proc"):
+            if not pid.isdigit():
+                continue
+            try:
+                with open("/proc/%s/cmdline" % pid, "rb") as f:
+                    cmd = f.read().decode(errors="replace")
+                if "soffice.bin" not in cmd or marker not in cmd:
+                    continue
+                with open("/proc/%s/status" % pid) as f:
+                    for line in f:
+                        if line.startswith("VmRSS:"):
+                            return int(line.split()[1])
+            except OSError:
+                continue
+        return None
+
     def new_sheet(self):
         return self.desktop.loadComponentFromURL("private:factory/scalc", "_blank", 0, (prop("Hidden", True),))
 
