@@ -115,10 +115,20 @@ double work_of(const std::vector<std::pair<std::int64_t, std::int64_t>>& region,
 
 double log_choose(double n, double k) { return std::lgamma(n + 1) - std::lgamma(k + 1) - std::lgamma(n - k + 1); }
 
+// log of the binomial probability of x in n at rate p.
+double log_binomial_pmf(double n, double x, double p) {
+    return log_choose(n, x) + x * std::log(p) + (n - x) * std::log1p(-p);
+}
+
 // P(every group's count inside its region) under the multivariate
-// hypergeometric law of the margins: prod C(n_i, x_i) / C(N, S), summed over
-// the running total group by group. Each stage is scaled by its largest value
-// (the log of the scale kept apart), so no product overflows.
+// hypergeometric law of the margins, prod C(n_i, x_i) / C(N, S), summed over
+// the running total group by group. With p = S / N the product equals
+// prod Bin(x_i; n_i, p) / Bin(S; N, p) (the powers of p and 1 - p multiply
+// to p^S (1 - p)^(N - S) whatever the x_i), so each group's weights are its
+// binomial probabilities at p: near 1 at their largest across its region,
+// where the binomial coefficients alone ran to 1e-700 over a region of 700
+// counts at 90 % (a silent underflow that kept the Sidak limits). Each stage
+// is also scaled by its largest value (the log of the scale kept apart).
 double all_inside(const std::vector<group>& gs, const std::vector<std::pair<std::int64_t, std::int64_t>>& region,
                   std::int64_t big_n, std::int64_t s) {
     const std::size_t k = gs.size();
@@ -128,6 +138,7 @@ double all_inside(const std::vector<group>& gs, const std::vector<std::pair<std:
         rest_high[j] = rest_high[j + 1] + region[j].second;
     }
     if (rest_low[0] > s || rest_high[0] < s) return 0.0;
+    const double p = static_cast<double>(s) / static_cast<double>(big_n), odds = p / (1 - p);
     double log_scale = 0;
     std::vector<double> now{1.0}, next;
     std::int64_t now_low = 0;  // running total of now[0]
@@ -136,12 +147,18 @@ double all_inside(const std::vector<group>& gs, const std::vector<std::pair<std:
     for (std::size_t j = 0; j < k; ++j) {
         const auto [a, b] = region[j];
         const double n = static_cast<double>(gs[j].attempts);
-        // C(n, x) / C(n, a) by the ratio (n - x) / (x + 1).
-        w.assign(static_cast<std::size_t>(b - a + 1), 1.0);
-        for (std::int64_t x = a; x < b; ++x)
-            w[static_cast<std::size_t>(x - a + 1)] = w[static_cast<std::size_t>(x - a)] * (n - static_cast<double>(x)) /
-                                                    static_cast<double>(x + 1);
-        log_scale += log_choose(n, static_cast<double>(a));
+        // Bin(x; n, p) / Bin(x0; n, p) from the count x0 nearest n p, by the
+        // ratios (n - x) p / ((x + 1) q) upwards and their inverses downwards.
+        const std::int64_t x0 = std::clamp(static_cast<std::int64_t>(std::llround(n * p)), a, b);
+        w.assign(static_cast<std::size_t>(b - a + 1), 0.0);
+        w[static_cast<std::size_t>(x0 - a)] = 1.0;
+        for (std::int64_t x = x0; x < b; ++x)
+            w[static_cast<std::size_t>(x + 1 - a)] =
+                w[static_cast<std::size_t>(x - a)] * (n - static_cast<double>(x)) / static_cast<double>(x + 1) * odds;
+        for (std::int64_t x = x0; x > a; --x)
+            w[static_cast<std::size_t>(x - 1 - a)] =
+                w[static_cast<std::size_t>(x - a)] * static_cast<double>(x) / (n - static_cast<double>(x) + 1) / odds;
+        log_scale += log_binomial_pmf(n, static_cast<double>(x0), p);
         done_low += a;
         done_high += b;
         const std::int64_t lo = std::max(done_low, s - rest_high[j + 1]);
@@ -165,7 +182,8 @@ double all_inside(const std::vector<group>& gs, const std::vector<std::pair<std:
         now_low = lo;
     }
     const double at_s = now[static_cast<std::size_t>(s - now_low)];
-    return std::exp(std::log(at_s) + log_scale - log_choose(static_cast<double>(big_n), static_cast<double>(s)));
+    return std::exp(std::log(at_s) + log_scale -
+                    log_binomial_pmf(static_cast<double>(big_n), static_cast<double>(s), p));
 }
 
 }  // namespace

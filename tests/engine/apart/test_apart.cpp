@@ -175,3 +175,28 @@ TEST(Apart, ThirtySuppliersAreExactNotTheFallback) {
     EXPECT_EQ(res.rows[3].verdict, -1);
     std::printf("30 suppliers: tail %.6g (Sidak %.6g)\n", res.tail, -std::expm1(std::log(0.95) / 30) / 2);
 }
+
+TEST(Apart, LargeGroupsFarFromHalfStillUseTheMargins) {
+    // 30 groups of 10^4 at about 90 % (and the same counted as failures,
+    // about 10 %): the recursion's weights once underflowed over regions of
+    // several hundred counts and the Sidak limits came back silently. The
+    // tail found must lie above the Sidak tail, and the same for the mirrored
+    // tally (common practice, no source: swapping successes and failures
+    // mirrors every limit).
+    std::vector<std::int64_t> x, f, n;
+    for (int g = 0; g < 30; ++g) {
+        n.push_back(10000);
+        x.push_back(9000 + ((g * 37) % 11 - 5) * 10);
+        f.push_back(n.back() - x.back());
+    }
+    const auto high = apart::limits(counts::from_values(x, n), {});
+    const auto low = apart::limits(counts::from_values(f, n), {});
+    const double sidak = -std::expm1(std::log(0.95) / 30) / 2;
+    EXPECT_FALSE(high.fell_back);
+    EXPECT_GT(high.tail, 1.01 * sidak);
+    EXPECT_NEAR(high.tail, low.tail, 1e-9 * high.tail);  // sums in the other order: the last bits differ
+    for (std::size_t g = 0; g < 30; ++g) {
+        EXPECT_NEAR(high.rows[g].limits.low, 1 - low.rows[g].limits.high, 1e-12);
+        EXPECT_NEAR(high.rows[g].limits.high, 1 - low.rows[g].limits.low, 1e-12);
+    }
+}
