@@ -89,6 +89,16 @@ std::vector<double> pieces_of(const split& sp, double d, std::pair<double, doubl
     for (double c : corners)
         if (c > w.first && c < w.second) cuts.push_back(c);
     std::sort(cuts.begin(), cuts.end());
+    // A corner's neighbouring pieces are halved, so that no piece has a
+    // rough point at both ends (difference_cdf treats one end).
+    std::vector<double> halves;
+    for (std::size_t k = 0; k < cuts.size(); ++k)
+        if (cuts[k] == corners[0] || cuts[k] == corners[1]) {
+            if (k > 0) halves.push_back((cuts[k - 1] + cuts[k]) / 2);
+            if (k + 1 < cuts.size()) halves.push_back((cuts[k] + cuts[k + 1]) / 2);
+        }
+    cuts.insert(cuts.end(), halves.begin(), halves.end());
+    std::sort(cuts.begin(), cuts.end());
     return cuts;
 }
 
@@ -117,9 +127,9 @@ T over_pieces(const std::vector<double>& cuts, double allowed, Rule rule) {
 // A law whose density has an unbounded derivative at an end (a parameter
 // below 2: (1 - t)^0.5 next to 1 for b = 1.5, common with Jeffreys' prior)
 // makes Gauss-Kronrod's estimate stall near 1e-6 at depth 8 (measured:
-// 14.5 / 1.5 against 1.5 / 1.5 was refused); tanh-sinh, whose nodes crowd at
-// the ends, takes such ends and the other law's CDF corners, both at piece
-// ends, in stride.
+// 14.5 / 1.5 against 1.5 / 1.5 was refused): such end pieces are
+// substituted (difference_cdf), and the quantile takes the bracketing
+// search, whose CDFs can.
 bool rough_ends(const beta_law& law) { return law.a < 2 || law.b < 2; }
 constexpr double min_substituted = 0.25;
 
@@ -132,45 +142,43 @@ double difference_cdf(const beta_law& x, const beta_law& y, double d) {
         const double c = other_cdf(sp, other_point(sp, v, d));
         return c > 0 ? std::exp(log_density(sp.over, v)) * c : 0.0;
     };
-    // The other law's ends, where its CDF has a corner, as points of the
-    // integrated law.
+    // The other law's ends (u = 0 and u = 1) as points of the integrated law.
     const double corners[2] = {sp.over_x ? d : -d, sp.over_x ? 1 + d : 1 - d};
     const auto w = window(sp.over);
     const double allowed = std::max(max_cdf_error, noise_floor(x, y));
     const double total = over_pieces<double>(pieces_of(sp, d, w), allowed, [&](double a, double b, double* error) {
-        // The integrated law's end pieces: an infinite density there (a
-        // parameter p from 0.25 to 1, Jeffreys' 0.5 among them) is taken out
-        // by the substitution t = a + (b - a) v^(1/p), under which the
-        // integrand is bounded (t^(p - 1) dt is a multiple of dv); below 0.25
-        // v^(1/p) crowds the whole piece into the last nodes and tanh-sinh does
-        // better; a derivative that is infinite (a parameter below 2)
-        // and a corner of a rough other law go to tanh-sinh, whose nodes crowd
-        // at the ends; Gauss-Kronrod elsewhere (over a long smooth tail
-        // tanh-sinh's estimate stalled near 1e-8).
+        // End pieces where a law turns like t^p with p below 2: the
+        // integrated law's own end (its density), or a corner where the other
+        // law's point reaches 0 or 1 (its CDF; p its first parameter at 0, its
+        // second at 1). An infinite density (p from 0.25 to 1, Jeffreys' 0.5
+        // among them) is taken out by t = a + (b - a) v^(1/p), under which the
+        // integrand is bounded and smooth. Otherwise tanh-sinh, whose nodes
+        // crowd at the ends, on the piece measured from its rough end
+        // (tau in [0, b - a]): measured from a it rounded its nodes onto a
+        // itself away from 0, which Boost asserts against. Gauss-Kronrod
+        // elsewhere.
         using gk = boost::math::quadrature::gauss_kronrod<double, 61>;
-        if (a == w.first && sp.over.a < 1 && sp.over.a >= min_substituted) {
-            const double p = sp.over.a, width = b - a;
-            auto g = [&](double v) {
-                if (!(v > 0)) return 0.0;
-                const double t = a + width * std::pow(v, 1 / p);
-                return f(t) * width / p * std::pow(v, 1 / p - 1);
-            };
-            return gk::integrate(g, 0.0, 1.0, quad_depth, cdf_tolerance, error);
+        auto from_end = [&](double p, bool low_end) {
+            const double width = b - a;
+            if (p < 1 && p >= min_substituted) {
+                auto g = [&](double v) {
+                    if (!(v > 0)) return 0.0;
+                    const double t = low_end ? a + width * std::pow(v, 1 / p) : b - width * std::pow(v, 1 / p);
+                    return f(t) * width / p * std::pow(v, 1 / p - 1);
+                };
+                return gk::integrate(g, 0.0, 1.0, quad_depth, cdf_tolerance, error);
+            }
+            auto g = [&](double tau) { return f(low_end ? a + tau : b - tau); };
+            return boost::math::quadrature::tanh_sinh<double>(12).integrate(g, 0.0, width, 1e-12, error);
+        };
+        if (a == w.first && sp.over.a < 2) return from_end(sp.over.a, true);
+        if (b == w.second && sp.over.b < 2) return from_end(sp.over.b, false);
+        for (const auto& [corner, p] : {std::pair{corners[0], sp.other.a}, std::pair{corners[1], sp.other.b}}) {
+            if (!(p < 2)) continue;
+            if (a == corner) return from_end(p, true);
+            if (b == corner) return from_end(p, false);
         }
-        if (b == w.second && sp.over.b < 1 && sp.over.b >= min_substituted) {
-            const double p = sp.over.b, width = b - a;
-            auto g = [&](double v) {
-                if (!(v > 0)) return 0.0;
-                const double t = b - width * std::pow(v, 1 / p);
-                return f(t) * width / p * std::pow(v, 1 / p - 1);
-            };
-            return gk::integrate(g, 0.0, 1.0, quad_depth, cdf_tolerance, error);
-        }
-        const bool own_end = rough_ends(sp.over) && (a == w.first || b == w.second);
-        const bool corner = rough_ends(sp.other) && (a == corners[0] || a == corners[1] || b == corners[0] ||
-                                                     b == corners[1]);
-        return own_end || corner ? boost::math::quadrature::tanh_sinh<double>(12).integrate(f, a, b, 1e-12, error)
-                                 : gk::integrate(f, a, b, quad_depth, cdf_tolerance, error);
+        return gk::integrate(f, a, b, quad_depth, cdf_tolerance, error);
     });
     return std::clamp(total, 0.0, 1.0);
 }
