@@ -199,6 +199,19 @@ def fixed_axis(axis, low, high):
     axis.Min, axis.Max = low, high
 
 
+def limits_chart(sheet, name, at, first, last, titles, y_min):
+    """Rows first..last (0-based, the header first) of a RATES.APART table on
+    the third sheet: names in A as categories, rate and limits (C to E) as
+    dots and limit bars."""
+    names = CellRangeAddress(2, 0, first, 0, last)
+    values = CellRangeAddress(2, 2, first, 4, last)
+    chart = titled_chart(sheet, name, Rectangle(at.X, at.Y, 16000, 10500), (names, values), True, None, titles)
+    chart.Diagram = chart.createInstance("com.sun.star.chart.LineDiagram")
+    symbols_only(chart, [8, 13, 13])
+    legend_below(chart)
+    fixed_axis(chart.Diagram.YAxis, y_min, 1.0)
+
+
 def add_limits_sheet(doc):
     """A third sheet: which ovens stand apart from the whole (RATES.APART,
     exact limits for all four ovens at once) and a p-chart of oven A's days
@@ -237,26 +250,12 @@ def add_limits_sheet(doc):
     for col, width in zip("ABCDEFGHI", [7000, 2000, 2000, 3600, 3600, 2000, 600, 2400, 2400]):
         sheet.Columns.getByName(col).Width = width
     # Charts: rates as dots, limits as short bars, no lines between groups.
-    at = cell("K1").Position
     # The header row (its titles name the series), then the seven rows of the
     # tally, so an oven typed in a spare row appears.
-    names = CellRangeAddress(2, 0, LIMITS_TOP - 1, 0, LIMITS_TOP + 6)
-    values = CellRangeAddress(2, 2, LIMITS_TOP - 1, 4, LIMITS_TOP + 6)  # rate, lower, upper
-    chart = titled_chart(sheet, "OvenLimits", Rectangle(at.X, at.Y, 16000, 10500), (names, values), True, None,
-                         ("Pass rate of each oven against its decision limits", "Oven", "Pass rate"))
-    chart.Diagram = chart.createInstance("com.sun.star.chart.LineDiagram")
-    symbols_only(chart, [8, 13, 13])
-    legend_below(chart)
-    fixed_axis(chart.Diagram.YAxis, 0.5, 1.0)
-    at = cell("K%d" % DAYS_TOP).Position
-    names = CellRangeAddress(2, 0, DAYS_TOP - 1, 0, last - 1)  # the days' numbers, 1 to 15
-    values = CellRangeAddress(2, 2, DAYS_TOP - 1, 4, last - 1)
-    chart = titled_chart(sheet, "DailyPChart", Rectangle(at.X, at.Y, 16000, 10500), (names, values), True, None,
-                         ("p-chart of oven A, day by day", "Day", "Pass rate"))
-    chart.Diagram = chart.createInstance("com.sun.star.chart.LineDiagram")
-    symbols_only(chart, [8, 13, 13])
-    legend_below(chart)
-    fixed_axis(chart.Diagram.YAxis, 0.8, 1.0)
+    limits_chart(sheet, "OvenLimits", cell("K1").Position, LIMITS_TOP - 1, LIMITS_TOP + 6,
+                 ("Pass rate of each oven against its decision limits", "Oven", "Pass rate"), 0.5)
+    limits_chart(sheet, "DailyPChart", cell("K%d" % DAYS_TOP).Position, DAYS_TOP - 1, last - 1,
+                 ("p-chart of oven A, day by day", "Day", "Pass rate"), 0.8)
     style = doc.StyleFamilies.getByName("PageStyles").getByName(sheet.PageStyle)
     style.IsLandscape = True
     style.Width, style.Height = max(style.Width, style.Height), min(style.Width, style.Height)

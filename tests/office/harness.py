@@ -60,6 +60,15 @@ class SheetCase(unittest.TestCase):
         last = first_row + len(successes) - 1
         return "%s%d:%s%d;%s%d:%s%d" % (col_s, first_row, col_s, last, col_n, first_row, col_n, last)
 
+    def open_sample_workbook(self, name):
+        """A work copy of the sample workbook, opened in place of the blank sheet."""
+        import shutil
+        path = os.path.join(OFFICE.workdir, name)
+        shutil.copy(os.path.join(HERE, "..", "..", "sample-sheets", "reflow-oven-trial.fods"), path)
+        os.chmod(path, 0o644)
+        self.doc.close(True)
+        self.doc = OFFICE.load(path)
+
     def formula(self, address, text):
         cell = self.sheet.getCellRangeByName(address)
         cell.setFormula(text)

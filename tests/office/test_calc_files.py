@@ -112,13 +112,7 @@ class SampleWorkbook(SheetCase):
     charts read the cells they should."""
 
     def test_charts_cover_their_blocks_and_no_cell_shows_an_error(self):
-        import shutil
-        here = os.path.dirname(os.path.abspath(__file__))
-        path = os.path.join(harness.OFFICE.workdir, "sample.fods")
-        shutil.copy(os.path.join(here, "..", "..", "sample-sheets", "reflow-oven-trial.fods"), path)
-        os.chmod(path, 0o644)
-        self.doc.close(True)
-        self.doc = harness.OFFICE.load(path)
+        self.open_sample_workbook("sample.fods")
         self.doc.calculateAll()
         curves = self.doc.Sheets.getByName("Posterior curves")
         # A saved file keeps its charts, not the names given when they were made.

@@ -5,8 +5,6 @@ turn, so the component's bounded caches fill and recycle), must grow the
 office process's resident memory by less than 5 MB after a warm-up. The
 growth is printed for the README.
 """
-import os
-import shutil
 import time
 
 import harness
@@ -15,12 +13,7 @@ from harness import SheetCase
 
 class Memory(SheetCase):
     def test_thousand_recalculations_of_the_sample_workbook(self):
-        here = os.path.dirname(os.path.abspath(__file__))
-        path = os.path.join(harness.OFFICE.workdir, "memory.fods")
-        shutil.copy(os.path.join(here, "..", "..", "sample-sheets", "reflow-oven-trial.fods"), path)
-        os.chmod(path, 0o644)
-        self.doc.close(True)
-        self.doc = harness.OFFICE.load(path)
+        self.open_sample_workbook("memory.fods")
         trial = self.doc.Sheets.getByName("Oven trial")
         pilot = trial.getCellRangeByName("B8")
 

@@ -190,10 +190,116 @@ double all_inside(const std::vector<group>& gs, const std::vector<std::pair<std:
 
 std::string verdict_word(int verdict) { return verdict < 0 ? "below" : verdict > 0 ? "above" : "within"; }
 
-result limits(const counts& c, const options& o) {
-    const double level = arguments::level(o.level, "level");
-    const auto gs = c.with_attempts();
+namespace {
+
+// What every method needs: the groups with attempts and their totals.
+struct whole {
+    std::vector<group> groups;
+    std::int64_t attempts = 0, successes = 0;
+    double level = 0;
+};
+
+// Centre +- h sigma_i, sigma_i about a standard or about a whole that
+// includes the group, times Laney's sigma_z for rows in time order.
+void normal_limits(const whole& w, const options& o, bool by_standard, result& out) {
+    const auto& gs = w.groups;
     const std::size_t k = gs.size();
+    const double tail = o.together == family::each ? (1 - w.level) / 2 : sidak_tail(w.level, k);
+    const double cq = out.centre * (1 - out.centre), bn = static_cast<double>(w.attempts);
+    std::vector<double> sigma;
+    for (const auto& g : gs) {
+        const double n = static_cast<double>(g.attempts);
+        sigma.push_back(by_standard ? std::sqrt(cq / n) : std::sqrt(cq * (bn - n) / (bn * n)));
+    }
+    if (o.variation == spread::time && k >= 2) {
+        double moving = 0;
+        bool defined = true;
+        for (std::size_t r = 1; r < k; ++r) {
+            if (!(sigma[r] > 0 && sigma[r - 1] > 0)) defined = false;
+            else
+                moving += std::fabs((gs[r].rate() - out.centre) / sigma[r] -
+                                    (gs[r - 1].rate() - out.centre) / sigma[r - 1]);
+        }
+        if (defined) out.spread_factor = moving / static_cast<double>(k - 1) / d2;
+    }
+    out.multiplier = upper_z(tail) * out.spread_factor;
+    for (std::size_t r = 0; r < k; ++r)
+        out.rows[r].limits = {std::max(0.0, out.centre - out.multiplier * sigma[r]),
+                              std::min(1.0, out.centre + out.multiplier * sigma[r])};
+}
+
+// Each group's binomial(n_i, centre) counts at the tail.
+void standard_limits(const whole& w, const options& o, result& out) {
+    out.tail = o.together == family::each ? (1 - w.level) / 2 : sidak_tail(w.level, w.groups.size());
+    for (std::size_t r = 0; r < w.groups.size(); ++r) {
+        const auto counts_in = binomial_counts(w.groups[r].attempts, out.centre, out.tail);
+        const double n = static_cast<double>(w.groups[r].attempts);
+        out.rows[r].limits = {counts_in.low / n, counts_in.high / n};
+    }
+}
+
+// Every group at once against the whole it belongs to: the largest common
+// tail whose regions hold every group at the level under the margins' law.
+void joint_limits(const whole& w, result& out) {
+    const auto& gs = w.groups;
+    const std::int64_t big_n = w.attempts, s = w.successes;
+    const double widest = sidak_tail(w.level, gs.size()), narrowest = (1 - w.level) / 2;
+    double stored = 0;
+    const double q = static_cast<double>(s) / static_cast<double>(big_n), bn = static_cast<double>(big_n);
+    for (const auto& g : gs) {
+        const double n = static_cast<double>(g.attempts);
+        const double sd = bn > 1 ? std::sqrt(n * q * (1 - q) * (bn - n) / (bn - 1)) : 0.0;
+        stored += std::min(n + 1, 28 * sd + 3);
+    }
+    if (stored > max_stored)
+        throw budget_exceeded("Exact limits for every group at once would store about " + format_short(stored) +
+                              " probabilities, beyond the cap of " + format_number(max_stored) +
+                              "; at these counts method \"normal\" is as accurate.");
+    std::vector<marginal> laws;
+    for (const auto& g : gs) laws.push_back(marginal_of(big_n, s, g.attempts));
+    auto regions_at = [&](double t) {
+        std::vector<std::pair<std::int64_t, std::int64_t>> region;
+        for (const auto& m : laws) region.emplace_back(m.low(t), m.high(t));
+        return region;
+    };
+    // The tails at which some group's region changes, between the Sidak
+    // tail and the one-group tail: the only values worth trying.
+    std::vector<double> candidates{widest, narrowest};
+    for (const auto& m : laws)
+        for (const auto* side : {&m.below, &m.at_least})
+            for (double v : *side)
+                if (v > widest && v < narrowest) candidates.push_back(v);
+    std::sort(candidates.begin(), candidates.end());
+    candidates.erase(std::unique(candidates.begin(), candidates.end()), candidates.end());
+    // The cost of one pass at the widest regions, times the passes of a bisection.
+    const auto widest_regions = regions_at(widest);
+    const double passes = std::ceil(std::log2(static_cast<double>(candidates.size()) + 1)) + 1;
+    double chosen = widest;
+    if (work_of(widest_regions, s) * passes > max_exact_work) {
+        out.fell_back = true;
+    } else if (all_inside(gs, widest_regions, big_n, s) >= w.level) {
+        // The largest candidate whose regions still hold every group at the level.
+        std::size_t good = 0, bad = candidates.size();
+        while (bad - good > 1) {
+            const std::size_t mid = (good + bad) / 2;
+            if (all_inside(gs, regions_at(candidates[mid]), big_n, s) >= w.level) good = mid;
+            else bad = mid;
+        }
+        chosen = candidates[good];
+    }
+    out.tail = chosen;
+    const auto region = regions_at(chosen);
+    for (std::size_t r = 0; r < gs.size(); ++r) {
+        const double n = static_cast<double>(gs[r].attempts);
+        out.rows[r].limits = {static_cast<double>(region[r].first) / n, static_cast<double>(region[r].second) / n};
+    }
+}
+
+}  // namespace
+
+result limits(const counts& c, const options& o) {
+    whole w{c.with_attempts(), 0, 0, arguments::level(o.level, "level")};
+    const std::size_t k = w.groups.size();
     if (o.target && !(*o.target >= 0 && *o.target <= 1))
         arguments::out_of_range("target", *o.target, "lie between 0 and 1, a rate such as 0.95 for 95 %");
     if (o.how == method::exact && o.variation == spread::time)
@@ -201,108 +307,22 @@ result limits(const counts& c, const options& o) {
     if (k == 0 || (!o.target && k < 2))
         throw invalid_input("Limits around the whole need at least two groups with attempts (or a target); " +
                             std::to_string(k) + (k == 1 ? " has" : " have") + " any.");
-    std::int64_t big_n = 0, s = 0;
-    for (const auto& g : gs) {
-        big_n += g.attempts;
-        s += g.successes;
+    for (const auto& g : w.groups) {
+        w.attempts += g.attempts;
+        w.successes += g.successes;
     }
-    result out;
-    out.centre = o.target ? *o.target : static_cast<double>(s) / static_cast<double>(big_n);
-    if (!o.target && (s == 0 || s == big_n))
-        throw invalid_input(std::string("Every unit of the tally ") + (s == 0 ? "failed" : "passed") +
+    if (!o.target && (w.successes == 0 || w.successes == w.attempts))
+        throw invalid_input(std::string("Every unit of the tally ") + (w.successes == 0 ? "failed" : "passed") +
                             ", so no group can stand apart from the others; give a target to judge against.");
-    const bool judged_by_standard = o.target || o.together == family::each;
-    const double cq = out.centre * (1 - out.centre);
-    for (const auto& g : gs)
-        out.rows.push_back({g.position, g.successes, g.attempts, g.rate(), {}, 0});
-
-    if (o.how == method::normal) {
-        const double tail = o.together == family::each ? (1 - level) / 2 : sidak_tail(level, k);
-        std::vector<double> sigma;
-        for (const auto& g : gs) {
-            const double n = static_cast<double>(g.attempts), bn = static_cast<double>(big_n);
-            sigma.push_back(judged_by_standard ? std::sqrt(cq / n) : std::sqrt(cq * (bn - n) / (bn * n)));
-        }
-        if (o.variation == spread::time && k >= 2) {
-            double moving = 0;
-            bool defined = true;
-            for (std::size_t r = 1; r < k; ++r) {
-                if (!(sigma[r] > 0 && sigma[r - 1] > 0)) defined = false;
-                else
-                    moving += std::fabs((gs[r].rate() - out.centre) / sigma[r] -
-                                        (gs[r - 1].rate() - out.centre) / sigma[r - 1]);
-            }
-            if (defined) out.spread_factor = moving / static_cast<double>(k - 1) / d2;
-        }
-        out.multiplier = upper_z(tail) * out.spread_factor;
-        for (std::size_t r = 0; r < k; ++r) {
-            out.rows[r].limits = {std::max(0.0, out.centre - out.multiplier * sigma[r]),
-                                  std::min(1.0, out.centre + out.multiplier * sigma[r])};
-        }
-    } else if (judged_by_standard) {
-        out.tail = o.together == family::each ? (1 - level) / 2 : sidak_tail(level, k);
-        for (std::size_t r = 0; r < k; ++r) {
-            const auto counts_in = binomial_counts(gs[r].attempts, out.centre, out.tail);
-            const double n = static_cast<double>(gs[r].attempts);
-            out.rows[r].limits = {counts_in.low / n, counts_in.high / n};
-        }
-    } else {
-        // Exact, every group at once, judged against the whole it belongs to.
-        const double widest = sidak_tail(level, k), narrowest = (1 - level) / 2;
-        double stored = 0;
-        const double q = static_cast<double>(s) / static_cast<double>(big_n);
-        for (const auto& g : gs) {
-            const double n = static_cast<double>(g.attempts), bn = static_cast<double>(big_n);
-            const double sd = bn > 1 ? std::sqrt(n * q * (1 - q) * (bn - n) / (bn - 1)) : 0.0;
-            stored += std::min(n + 1, 28 * sd + 3);
-        }
-        if (stored > max_stored)
-            throw budget_exceeded("Exact limits for every group at once would store about " + format_short(stored) +
-                                  " probabilities, beyond the cap of " + format_number(max_stored) +
-                                  "; at these counts method \"normal\" is as accurate.");
-        std::vector<marginal> laws;
-        for (const auto& g : gs) laws.push_back(marginal_of(big_n, s, g.attempts));
-        auto regions_at = [&](double t) {
-            std::vector<std::pair<std::int64_t, std::int64_t>> region;
-            for (const auto& m : laws) region.emplace_back(m.low(t), m.high(t));
-            return region;
-        };
-        // The tails at which some group's region changes, between the Sidak
-        // tail and the one-group tail: the only values worth trying.
-        std::vector<double> candidates{widest, narrowest};
-        for (const auto& m : laws)
-            for (const auto* side : {&m.below, &m.at_least})
-                for (double v : *side)
-                    if (v > widest && v < narrowest) candidates.push_back(v);
-        std::sort(candidates.begin(), candidates.end());
-        candidates.erase(std::unique(candidates.begin(), candidates.end()), candidates.end());
-        // The cost of one pass at the widest regions, times the passes of a bisection.
-        const double one_pass = work_of(regions_at(widest), s);
-        const double passes = std::ceil(std::log2(static_cast<double>(candidates.size()) + 1)) + 1;
-        double chosen = widest;
-        if (one_pass * passes > max_exact_work) {
-            out.fell_back = true;
-        } else if (all_inside(gs, regions_at(widest), big_n, s) >= level) {
-            // The largest candidate whose regions still hold every group at the level.
-            std::size_t good = 0, bad = candidates.size();
-            while (bad - good > 1) {
-                const std::size_t mid = (good + bad) / 2;
-                if (all_inside(gs, regions_at(candidates[mid]), big_n, s) >= level) good = mid;
-                else bad = mid;
-            }
-            chosen = candidates[good];
-        }
-        out.tail = chosen;
-        const auto region = regions_at(chosen);
-        for (std::size_t r = 0; r < k; ++r) {
-            const double n = static_cast<double>(gs[r].attempts);
-            out.rows[r].limits = {static_cast<double>(region[r].first) / n, static_cast<double>(region[r].second) / n};
-        }
-    }
-    for (auto& row : out.rows) {
-        // Whole counts compare exactly; normal limits compare as rates.
-        row.verdict = row.rate < row.limits.low ? -1 : (row.rate > row.limits.high ? 1 : 0);
-    }
+    result out;
+    out.centre = o.target ? *o.target : static_cast<double>(w.successes) / static_cast<double>(w.attempts);
+    for (const auto& g : w.groups) out.rows.push_back({g.position, g.successes, g.attempts, g.rate(), {}, 0});
+    const bool by_standard = o.target || o.together == family::each;
+    if (o.how == method::normal) normal_limits(w, o, by_standard, out);
+    else if (by_standard) standard_limits(w, o, out);
+    else joint_limits(w, out);
+    // Whole counts compare exactly; normal limits compare as rates.
+    for (auto& row : out.rows) row.verdict = row.rate < row.limits.low ? -1 : (row.rate > row.limits.high ? 1 : 0);
     return out;
 }
 
