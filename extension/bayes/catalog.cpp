@@ -37,7 +37,7 @@ using shared::successes;
 // Where the answer is an integral over the groups' laws (P(best), the loss,
 // P(ahead) when no finite sum applies).
 #define WHY_523_WORK                                                                                         \
-    " Err:523 when the groups' laws need more than about 2 s of work (groups of 10^12 attempts and more)."
+    " Err:523 when the groups' laws need more than about 2 s of work (many groups of 10^6 attempts or more)."
 
 constexpr argument credible_level{
     "level", "Probability the interval holds, between 0 and 1: 0.95 means the rate lies inside with probability 95 %.",
@@ -127,18 +127,18 @@ constexpr std::array table{
     function{"postOrder", "RATES.POST.ORDER",
              "Square array, one row and one column per filled row of the tally: the probability that the row "
              "group's rate is better than the column group's (above it; below it with goal \"low\"). Enter as an array formula G rows by G columns for G "
-             "groups; the diagonal stays blank. Up to 100 groups (40 with a prior that is not a whole number); more "
-             "give Err:523." WHY_502_POST_ALL(" and goal one of the words listed"),
+             "groups; the diagonal stays blank. Up to 100 groups; more give Err:523."
+             WHY_502_POST_ALL(" and goal one of the words listed") WHY_523_WORK,
              order_args, true},
     function{"postBest", "RATES.POST.BEST",
              "Probability that group i has the best rate of all the groups (the highest; the lowest with goal "
-             "\"low\" for defect counts). Over all groups these add up to 1. Up to 200 groups; more give Err:523."
+             "\"low\" for defect counts). Over all groups these add up to 1. Up to 500 groups; more give Err:523."
              WHY_502_POST(" and goal one of the words listed") WHY_523_WORK,
              best_args},
     function{"postLoss", "RATES.POST.LOSS",
              "Expected shortfall of choosing group i: how much rate (a fraction; format as %) you expect to give "
              "up against the truly best group. Near 0: choosing i costs little even if it is not the best. Up to "
-             "200 groups; more give Err:523." WHY_502_POST(" and goal one of the words listed") WHY_523_WORK,
+             "500 groups; more give Err:523." WHY_502_POST(" and goal one of the words listed") WHY_523_WORK,
              best_args},
     function{"postSame", "RATES.POST.SAME",
              "Probability that every group shares one rate rather than each having its own, given the counts. "
@@ -155,7 +155,7 @@ constexpr std::array table{
     function{"postTable", "RATES.POST.TABLE",
              "Array with a header row, then one row per group: its name or position, expected rate, credible "
              "interval low and high (central), probability of being the best, and expected loss of choosing it. "
-             "Enter as an array formula 6 columns wide and G + 1 rows high. Up to 30 groups; more give Err:523."
+             "Enter as an array formula 6 columns wide and G + 1 rows high. Up to 500 groups; more give Err:523."
              WHY_502_POST_ALL(", level strictly between 0 and 1 and goal one of the words listed") WHY_523_WORK,
              table_args, true},
 };

@@ -106,6 +106,25 @@ BENCHMARK(BM_loss_200)->Arg(1)->Arg(2)->Unit(benchmark::kMillisecond);
 BENCHMARK(BM_table_passes_30)->Arg(1)->Arg(2)->Unit(benchmark::kMillisecond);
 BENCHMARK(BM_next_1e9)->Arg(1)->Arg(2)->Unit(benchmark::kMicrosecond);
 
+// Issue 22: how the cross-group calls grow with the groups (the caps in
+// across.hpp and comparison.hpp come from these). Args: groups, prior (1:
+// flat, 2: Jeffreys').
+void BM_best_groups(benchmark::State& state) {
+    const auto laws = many(static_cast<int>(state.range(0)), 300, state.range(1) == 1 ? 1.0 : 0.5);
+    for (auto _ : state) benchmark::DoNotOptimize(bayes::best(laws, 0, bayes::goal::high));
+}
+void BM_table_passes_groups(benchmark::State& state) {
+    const auto laws = many(static_cast<int>(state.range(0)), 300, state.range(1) == 1 ? 1.0 : 0.5);
+    for (auto _ : state) benchmark::DoNotOptimize(bayes::across(laws, bayes::goal::high));
+}
+void BM_order_groups(benchmark::State& state) {
+    const auto laws = many(static_cast<int>(state.range(0)), 300, state.range(1) == 1 ? 1.0 : 0.5);
+    for (auto _ : state) benchmark::DoNotOptimize(bayes::order(laws, bayes::goal::high));
+}
+BENCHMARK(BM_best_groups)->ArgsProduct({{500}, {1, 2}})->Unit(benchmark::kMillisecond);
+BENCHMARK(BM_table_passes_groups)->ArgsProduct({{100, 500}, {1, 2}})->Unit(benchmark::kMillisecond);
+BENCHMARK(BM_order_groups)->ArgsProduct({{40, 100}, {1, 2}})->Unit(benchmark::kMillisecond);
+
 void BM_credible_hpd(benchmark::State& state) {
     const bayes::beta_law law{287, 15};
     for (auto _ : state) benchmark::DoNotOptimize(bayes::credible(law, 0.95, bayes::kind::hpd));

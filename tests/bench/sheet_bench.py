@@ -20,6 +20,13 @@ are whole columns (A:A) against the same formula on the exact used rows,
 beside CHISQ.TEST on the same counts, for a short tally (4 groups) and a long
 one (3,000 groups); also an optional range argument (labels) given as a
 whole column. CELLS formula cells read the same ranges.
+    /usr/bin/python3 tests/bench/sheet_bench.py build/tallyrates.oxt bayes
+recalculates, after one count changes, a RATES.POST.TABLE of 30 suppliers
+(300 units each) with the flat and with Jeffreys' prior, and a column of 200
+RATES.POST.BEST cells (and one of 200 RATES.POST.LOSS cells) beside 200
+lots; each beside the same number of built-in BETA.DIST / BETA.INV cells on
+the same counts (what a sheet without the add-in would show: each group's
+own law, nothing across groups).
 """
 import os
 import sys
@@ -175,6 +182,58 @@ def pairs(office):
           % (first * 1e6, later * 1e6, first / later))
 
 
+def fill_lots(sheet, groups):
+    # A passed, C made (B failed, for symmetry with the other scenarios);
+    # rates from 85 % to 95 %, 300 units each.
+    rows = []
+    for g in range(groups):
+        x = int(300 * (0.85 + 0.10 * g / groups))
+        rows.append((float(x), float(300 - x), 300.0))
+    sheet.getCellRangeByName("A1:C%d" % groups).setDataArray(tuple(rows))
+
+
+def bayes(office):
+    """POST.TABLE of 30 and columns of 200 POST.BEST / POST.LOSS cells,
+    recalculated after a count changes, beside built-in cells."""
+    def after_change(doc, sheet, last_row, repeats=5):
+        best = float("inf")
+        for k in range(repeats):
+            sheet.getCellRangeByName("A%d" % last_row).setValue(260 - k)
+            t = time.perf_counter()
+            doc.calculateAll()
+            best = min(best, time.perf_counter() - t)
+        return best
+
+    cases = []
+    for prior in ("1", "0.5"):
+        cases.append(("POST.TABLE, 30 groups, prior %s" % prior, 30, "H1:M31",
+                      'RATES.POST.TABLE(A1:A30;C1:C30;0.95;"high";%s;%s)' % (prior, prior), None))
+        for what in ("BEST", "LOSS"):
+            cases.append(("column of 200 POST.%s, prior %s" % (what, prior), 200, None, None,
+                          '=RATES.POST.%s(A$1:A$200;C$1:C$200;ROW();"high";%s;%s)' % (what, prior, prior)))
+    cases.append(("built-in: 30 x (mean, BETA.INV x 2)", 30, None, None, None))
+    cases.append(("built-in: 200 BETA.DIST", 200, None, None, "=BETA.DIST(0.9;A1+1;C1-A1+1;1)"))
+    for name, groups, area, array, column in cases:
+        doc = office.new_sheet()
+        sheet = doc.Sheets.getByIndex(0)
+        fill_lots(sheet, groups)
+        if array:
+            sheet.getCellRangeByName(area).setArrayFormula(array)
+        elif column and column.startswith("=RATES"):
+            sheet.getCellRangeByName("H1:H%d" % groups).setFormulaArray(tuple((column,) for _ in range(groups)))
+        elif column:
+            cells = [(column.replace("A1", "A%d" % r).replace("C1", "C%d" % r),) for r in range(1, groups + 1)]
+            sheet.getCellRangeByName("H1:H%d" % groups).setFormulaArray(tuple(cells))
+        else:
+            cells = [("=(A{r}+1)/(C{r}+2)".format(r=r), "=BETA.INV(0.025;A{r}+1;C{r}-A{r}+1)".format(r=r),
+                      "=BETA.INV(0.975;A{r}+1;C{r}-A{r}+1)".format(r=r)) for r in range(1, groups + 1)]
+            sheet.getCellRangeByName("H1:J%d" % groups).setFormulaArray(tuple(cells))
+        secs = after_change(doc, sheet, groups)
+        error = sheet.getCellRangeByName("H2" if array else "H1").getError()
+        doc.close(True)
+        print("%-40s %9.1f ms per recalculation%s" % (name, secs * 1e3, "  (Err:%d)" % error if error else ""))
+
+
 def main():
     office = lo.Office(sys.argv[1]).install().start()
     try:
@@ -182,6 +241,8 @@ def main():
             ranges(office)
         elif len(sys.argv) > 2 and sys.argv[2] == "pairs":
             pairs(office)
+        elif len(sys.argv) > 2 and sys.argv[2] == "bayes":
+            bayes(office)
         else:
             blocks_against_chisq_test(office, int(sys.argv[2]) if len(sys.argv) > 2 else 3000)
     finally:

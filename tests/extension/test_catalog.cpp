@@ -18,6 +18,7 @@
 #include "pairs/keywords.hpp"
 #include "planning/keywords.hpp"
 #include "tallyrates/bayes/across.hpp"
+#include "tallyrates/bayes/comparison.hpp"
 #include "tallyrates/bayes/alike.hpp"
 #include "tallyrates/bayes/law.hpp"
 #include "tallyrates/core/errors.hpp"
@@ -199,6 +200,12 @@ TEST(Catalog, QuotedCapsAreTheEngines) {
                                            format_number(planning::max_ratio)),
               std::string::npos);
     EXPECT_NE(text_of("postBest", 99).find("Up to " + std::to_string(bayes::max_groups_best) + " groups"),
+              std::string::npos);
+    EXPECT_NE(text_of("postLoss", 99).find("Up to " + std::to_string(bayes::max_groups_best) + " groups"),
+              std::string::npos);
+    EXPECT_NE(text_of("postTable", 99).find("Up to " + std::to_string(bayes::max_groups_table) + " groups"),
+              std::string::npos);
+    EXPECT_NE(text_of("postOrder", 99).find("Up to " + std::to_string(bayes::max_groups_order) + " groups"),
               std::string::npos);
 }
 

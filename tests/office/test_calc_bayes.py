@@ -4,6 +4,8 @@
 Values are compared with the 50-digit mpmath rows of
 tests/reference/bayes.csv (bayes.py); each comparison names its source.
 """
+import os
+
 import harness
 from harness import SheetCase
 
@@ -110,6 +112,42 @@ class Posterior(SheetCase):
         import math
         want = math.exp(286 * math.log(0.9) + 14 * math.log(0.1) - (math.lgamma(287) + math.lgamma(15) - math.lgamma(302)))
         self.assertAlmostEqual(cell("O11").getValue() / want, 1.0, places=9)
+
+    def test_tables_of_30_and_200_groups_of_mixed_sizes(self):
+        # RATES.POST.TABLE of the reference tallies of tests/reference/across.py
+        # (30 and 200 groups of 5 to 10^6 attempts; 50-digit mpmath), each
+        # prior and goal: its P(best) and loss columns against the reference
+        # rows, and a column of POST.BEST cells beside it showing the table's
+        # values (one pass for both, through the component's cache).
+        import csv
+        checked = 0
+        for name in ("across.csv", "across_large.csv"):
+            with open(os.path.join(harness.HERE, "..", "reference", name)) as f:
+                rows = list(csv.DictReader(f))
+            for case in sorted({(r["case"], r["quantity"].split("|")[1], r["quantity"].split("|")[2]) for r in rows}):
+                chosen = [r for r in rows if (r["case"], r["quantity"].split("|")[1], r["quantity"].split("|")[2]) == case]
+                x = [int(v) for v in chosen[0]["successes"].split()]
+                n = [int(v) for v in chosen[0]["attempts"].split()]
+                G = len(x)
+                self.sheet.getCellRangeByName("A1:K%d" % (G + 1)).clearContents(1 | 2 | 4 | 16)
+                r = self.put_counts(x, n)
+                prior, goal = case[1], case[2]
+                self.sheet.getCellRangeByName("D1:I%d" % (G + 1)).setArrayFormula(
+                    'RATES.POST.TABLE(%s;0.95;"%s";%s;%s)' % (r, goal, prior, prior))
+                self.sheet.getCellRangeByName("K1:K%d" % G).setFormulaArray(tuple(
+                    ('=RATES.POST.BEST(%s;ROW();"%s";%s;%s)' % (r, goal, prior, prior),) for _ in range(G)))
+                self.doc.calculateAll()
+                for row in chosen:
+                    i = int(row["quantity"].split("|")[3])
+                    column = "H" if row["quantity"].startswith("best") else "I"
+                    got = self.sheet.getCellRangeByName("%s%d" % (column, i + 1)).getValue()
+                    want = float(row["value"])
+                    tol = max(1e-8 * abs(want), 1e-300) if abs(want) < 1e-3 else 1e-10
+                    self.assertLessEqual(abs(got - want), tol, "%s %s (%s)" % (row["case"], row["quantity"], row["source"]))
+                    if column == "H":
+                        self.assertEqual(self.sheet.getCellRangeByName("K%d" % i).getValue(), got)
+                    checked += 1
+        self.assertGreaterEqual(checked, 2 * 2 * 2 * 2 * 3)
 
     def test_defaults_goal_low_and_a_group_without_attempts(self):
         r = self.put_counts([14, 0, None], [14, 0, None])

@@ -209,6 +209,11 @@ BAYES = count_cases("=RATES.POST.MEAN({r};1)") + [
     ("difference bounds, 5e8 of 5e8 against 80 %", [5e8, 4e8], [5e8, 5e8], "=RATES.POST.DIFF.LOW({r};1;2)",
      OK, None),
     ("order, unknown goal", *FINE, '=RATES.POST.ORDER({r};"lower")', "Err:502", None),
+    ("best of 501 groups, one above the cap", [250] * 501, [300] * 501, "=RATES.POST.BEST({r};1)", "Err:523", None),
+    ("table of 101 groups", [200 + g for g in range(101)], [300] * 101, "=RATES.POST.TABLE({r})", OK, None),
+    ("order of 101 groups, one above the cap", [250] * 101, [300] * 101, "=RATES.POST.ORDER({r})", "Err:523", None),
+    ("order of 40 lines of 1e12, Jeffreys' prior: the work cap of the whole table",
+     [5e11 + 1e5 * g for g in range(40)], [1e12] * 40, "=RATES.POST.ORDER({r};;0.5;0.5)", "Err:523", None),
 ]
 
 PLANNING = count_cases("=RATES.PLAN.AHEAD({r};4;1;0.95)") + [
@@ -269,13 +274,15 @@ class Hostile(SheetCase):
         self.assertGreaterEqual(len(cases), 40)
         slowest = (0.0, "")
         wrong = []
+        filled = 4
         for what, x, n, text, expected, words in cases:
             # Values, text, formulas and the formats they left (=TRUE() leaves
             # a logical format, under which 0 and 1 read as FALSE and TRUE).
-            self.sheet.getCellRangeByName("A1:B4").clearContents(1 | 2 | 4 | 16 | 32 | 64)
+            self.sheet.getCellRangeByName("A1:B%d" % filled).clearContents(1 | 2 | 4 | 16 | 32 | 64)
             rows = max(len(x), len(n))
-            self.put(x, "A", 4)
-            self.put(n, "B", 4)
+            filled = max(4, rows)
+            self.put(x, "A", filled)
+            self.put(n, "B", filled)
             r = "A1:A%d;B1:B%d" % (rows, rows)
             self.formula("D1", text.format(r=r))
             start = time.monotonic()

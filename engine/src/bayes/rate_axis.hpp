@@ -32,6 +32,7 @@
 #pragma once
 
 #include <span>
+#include <string>
 #include <vector>
 
 #include "tallyrates/bayes/across.hpp"
@@ -67,11 +68,20 @@ double lower_tail_point(double a, double b, double tail);
 // the same kind of pass, so a cell never depends on which cell ran first.
 enum class answers { every_best, first_best, expected };
 
-across_groups compare_all(std::span<const beta_law> laws, goal g, reach how, answers what);
+// Work cap of one call, in law evaluations at quadrature nodes weighted by
+// their cost (a unit is about 1 us, so the cap is about 2 s): past it,
+// budget_exceeded (Err:523). A call that makes many passes or sums (the
+// table of every pair) shares one meter among them, so the cap bounds the
+// call, not each pass.
+inline constexpr double max_law_evaluations = 2e6;
+struct work_meter {
+    std::string what;  // the call, as its refusal names it
+    double used = 0;
+    // Adds `units`; past the cap, budget_exceeded.
+    void add(double units);
+};
 
-// Work cap of one pass, in law evaluations at quadrature nodes weighted by
-// their cost (a unit is about 2 us, so the cap is about 2 s): past it,
-// budget_exceeded (Err:523).
-inline constexpr double max_law_evaluations = 1e6;
+across_groups compare_all(std::span<const beta_law> laws, goal g, reach how, answers what,
+                          work_meter* meter = nullptr);
 
 }  // namespace tallyrates::bayes::detail

@@ -170,6 +170,52 @@ TEST(Compare, ReferenceRows) {
     EXPECT_EQ(checked["post_diff_low"] + checked["post_diff_high"], 4);
 }
 
+TEST(Compare, ManyGroupsOfMixedSizes) {
+    // best|prior|goal|i and loss|prior|goal|i at G = 30 and G = 200, sizes
+    // from 5 to 10^6 attempts (tests/reference/across.py: 50-digit mpmath,
+    // Gauss-Legendre over pieces, the incomplete beta by its continued
+    // fraction; across.csv holds the 30 groups, across_large.csv the 200).
+    std::map<std::string, int> checked;
+    bayes::across_cache cache(4);
+    auto rows = reference_rows("across.csv", "");
+    for (auto& r : reference_rows("across_large.csv", "")) rows.push_back(std::move(r));
+    for (const auto& r : rows) {
+        const auto f = fields(r.quantity);
+        SCOPED_TRACE(r.name + " " + r.quantity);
+        const double prior = std::stod(f[1]);
+        const goal g = f[2] == "high" ? goal::high : goal::low;
+        const auto laws = bayes::posteriors(counts::from_values(r.successes, r.attempts), {prior, prior});
+        const std::size_t i = std::stoul(f[3]) - 1;
+        // Through the cache, as the component calls it: one pass per case, prior and goal.
+        const double got = f[0] == "best" ? bayes::best(laws, i, g, &cache) : bayes::loss(laws, i, g, &cache);
+        const double tol = std::fabs(r.value) < 1e-3 ? std::max(1e-8 * std::fabs(r.value), 1e-300) : 1e-10;
+        EXPECT_NEAR(got, r.value, tol) << r.source;
+        ++checked[r.name + " " + f[0] + " " + f[1] + " " + f[2]];
+    }
+    // Every case, answer, prior and goal has rows (at least the three likeliest groups).
+    EXPECT_EQ(checked.size(), 2u * 2 * 2 * 2);
+    for (const auto& [what, count] : checked) EXPECT_GE(count, 3) << what;
+}
+
+TEST(Compare, OrderHoldsWhatEachAheadCellGives) {
+    // ORDER computes each pair once and fills both cells; every cell must
+    // still be the single cell's value to the last bit, for sums (flat
+    // prior), integrals (Jeffreys') and equal means, either goal.
+    for (const double prior : {1.0, 0.5}) {
+        const std::vector<bayes::beta_law> laws{
+            {prior + 286, prior + 14}, {prior + 14, prior},     {prior + 271, prior + 19},
+            {prior + 143, prior + 7},  {prior + 286, prior + 14}};  // the last: the first's twin
+        for (const goal g : {goal::high, goal::low}) {
+            const auto table = bayes::order(laws, g);
+            for (std::size_t r = 0; r < laws.size(); ++r)
+                for (std::size_t c = 0; c < laws.size(); ++c)
+                    if (r != c) {
+                        EXPECT_EQ(table[r][c], bayes::ahead(laws[r], laws[c], g)) << prior << " " << r << c;
+                    }
+        }
+    }
+}
+
 TEST(Compare, IdentitiesHold) {
     // Extra tests only: AHEAD(i, j) + AHEAD(j, i) = 1, BEST sums to
     // 1, goal low mirrors goal high for swapped successes and failures.
@@ -220,6 +266,12 @@ TEST(Compare, GroupCapsAreRefusedAtOnce) {
     EXPECT_THROW(bayes::best(laws_of(bayes::max_groups_best + 1), 0, bayes::goal::high), budget_exceeded);
     EXPECT_THROW(bayes::loss(laws_of(bayes::max_groups_best + 1), 0, bayes::goal::high), budget_exceeded);
     EXPECT_THROW(bayes::order(laws_of(bayes::max_groups_order + 1)), budget_exceeded);
+    // Every pair of 40 lines of 10^12 attempts with Jeffreys' prior is an
+    // integral of about 0.1 s: the pairs share one work cap, so the table is
+    // refused after about 2 s of work, not after a minute.
+    std::vector<bayes::beta_law> huge;
+    for (int g = 0; g < 40; ++g) huge.push_back({0.5 + 5e11 + 1e5 * g, 0.5 + 5e11 - 1e5 * g});
+    EXPECT_THROW(bayes::order(huge), budget_exceeded);
     const auto order = bayes::order(laws_of(3));
     EXPECT_EQ(order[0][0], 0.0);
     EXPECT_NEAR(order[0][1], 0.5, 1e-12);  // identical laws: even odds (symmetry)

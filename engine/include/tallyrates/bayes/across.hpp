@@ -21,11 +21,14 @@
 
 namespace tallyrates::bayes {
 
-// Caps on the groups of one call (budget_exceeded, Err:523, beyond them),
-// measured to keep each call within about 2 s: BEST and LOSS integrate
-// products over every group (one pass for all of them; README, Speed, for
-// the figures); TABLE is the same pass plus G credible intervals.
-inline constexpr std::size_t max_groups_best = 200, max_groups_table = 30;
+// Caps on the groups of one call (budget_exceeded, Err:523, beyond them):
+// BEST and LOSS integrate products over every group (one pass for all of
+// them), TABLE is both passes plus G credible intervals. 500 groups of 300
+// take 70 ms (flat prior) and 0.1 s (Jeffreys') a pass (README, Speed):
+// their laws are evaluated in double while groups x attempts stay below 3e5
+// (rate_axis.cpp); beyond, in long double, 10 times slower, and the work cap
+// of a pass (about 2 s) refuses what larger groups would cost.
+inline constexpr std::size_t max_groups_best = 500, max_groups_table = max_groups_best;
 
 // Every group's chance of being the best and expected loss, each from one
 // pass over the rate axis for all groups (src/bayes/rate_axis.hpp).

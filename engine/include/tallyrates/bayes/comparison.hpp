@@ -33,10 +33,11 @@ double ahead_absolute(const beta_law& x, const beta_law& y);
 // integral of f_y(t) F_x(t + d) dt (split where t + d meets 0 or 1), found by
 // a bracketing root search (TOMS 748).
 interval difference(const beta_law& x, const beta_law& y, double level);
-// Caps on the groups of ORDER (budget_exceeded, Err:523, beyond them): it
-// fills G x G cells, 100 groups with whole priors, 40 otherwise, where each
-// cell may be an integral (about 2 s at most).
-inline constexpr std::size_t max_groups_order = 100, max_groups_order_integrals = 40;
+// Cap on the groups of ORDER (budget_exceeded, Err:523, beyond it): it fills
+// G x G cells, one sum or integral per pair (100 groups of 300 with
+// Jeffreys' prior: about 0.7 s); all the pairs share one work cap (about
+// 2 s), which refuses large groups sooner.
+inline constexpr std::size_t max_groups_order = 100;
 // RATES.POST.ORDER: cell (r, c) holds P(rate_r > rate_c) (P(rate_r < rate_c)
 // for goal low: row r better than column c), the diagonal 0.
 std::vector<std::vector<double>> order(std::span<const beta_law> laws, goal g = default_goal);
