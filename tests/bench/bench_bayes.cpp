@@ -90,7 +90,7 @@ void BM_loss_200(benchmark::State& state) {
     const auto laws = many(200, 300, state.range(0) == 1 ? 1.0 : 0.5);
     for (auto _ : state) benchmark::DoNotOptimize(bayes::loss(laws, 100, bayes::goal::high));
 }
-// What POST.TABLE of 30 groups integrates: both passes (its credible bounds aside).
+// What POST.TABLE of 30 groups integrates: the pass (its credible bounds aside).
 void BM_table_passes_30(benchmark::State& state) {
     const auto laws = many(30, 300, state.range(0) == 1 ? 1.0 : 0.5);
     for (auto _ : state) benchmark::DoNotOptimize(bayes::across(laws, bayes::goal::high));

@@ -13,34 +13,30 @@ using namespace detail;
 
 namespace {
 
-// One of the two passes, through the cache when there is one.
-across_groups pass(std::span<const beta_law> laws, goal g, detail::answers what, across_cache* cache) {
-    across_key key{{}, g, what == detail::answers::expected ? 1 : 0};
+// The pass, through the cache when there is one.
+across_groups pass(std::span<const beta_law> laws, goal g, across_cache* cache) {
+    across_key key{{}, g};
     if (cache) {
-        for (const auto& l : laws) std::get<0>(key).insert(std::get<0>(key).end(), {l.a, l.b});
+        for (const auto& l : laws) key.first.insert(key.first.end(), {l.a, l.b});
         if (auto hit = cache->find(key)) return *hit;
     }
-    auto result = detail::compare_all(laws, g, detail::for_probability, what);
+    auto result = detail::compare_all(laws, g, detail::for_probability, detail::answers::every);
     if (cache) cache->put(key, result);
     return result;
 }
 
 }  // namespace
 
-across_groups across(std::span<const beta_law> laws, goal g, across_cache* cache) {
-    auto out = pass(laws, g, detail::answers::expected, cache);
-    out.best = pass(laws, g, detail::answers::every_best, cache).best;
-    return out;
-}
+across_groups across(std::span<const beta_law> laws, goal g, across_cache* cache) { return pass(laws, g, cache); }
 
 double best(std::span<const beta_law> laws, std::size_t i, goal g, across_cache* cache) {
     check_groups(laws.size(), max_groups_best, "The probability of being the best");
-    return pass(laws, g, detail::answers::every_best, cache).best.at(i);
+    return pass(laws, g, cache).best.at(i);
 }
 
 double loss(std::span<const beta_law> laws, std::size_t i, goal g, across_cache* cache) {
     check_groups(laws.size(), max_groups_best, "The expected loss");
-    return pass(laws, g, detail::answers::expected, cache).loss.at(i);
+    return pass(laws, g, cache).loss.at(i);
 }
 
 std::vector<std::string> summary_header(double level) {

@@ -159,11 +159,9 @@ struct breakpoint {
 
 // The pieces between `from` and `to`, cut at every law's scale; points closer
 // than half the finer scale of two neighbours are merged.
-std::vector<double> cuts_between(const std::vector<placed_law>& laws, double from, double to, bool densities) {
+std::vector<double> cuts_between(const std::vector<placed_law>& laws, double from, double to) {
     // A density is a peak that nodes may step over: cuts at 2, 5 and 10 sd.
-    // The expected best's integrand, a product of CDFs, only steps.
-    static constexpr double peak_sds[] = {0, 2, -2, 5, -5, 10, -10}, step_sds[] = {0};
-    const std::span<const double> sds = densities ? std::span<const double>(peak_sds) : std::span<const double>(step_sds);
+    static constexpr double sds[] = {0, 2, -2, 5, -5, 10, -10};
     std::vector<breakpoint> points;
     for (const auto& law : laws) {
         const double m = law.mean(), s = law.sd();
@@ -234,9 +232,9 @@ axis_problem set_up(std::span<const beta_law> input, goal g, double tail, bool a
 
 // The pieces of [from, to]; an end piece next to an infinite density gets
 // the power substitution (its map and exponent in `maps`).
-std::vector<quadrature_piece> pieces_of(const axis_problem& p, end_maps& maps, bool densities) {
+std::vector<quadrature_piece> pieces_of(const axis_problem& p, end_maps& maps) {
     if (!(p.to > p.from)) return {};
-    const auto cuts = cuts_between(p.laws, p.from, p.to, densities);
+    const auto cuts = cuts_between(p.laws, p.from, p.to);
     double a_min = 1, b_min = 1;
     for (const auto& l : p.laws) {
         a_min = std::min(a_min, l.a);
@@ -261,8 +259,9 @@ std::vector<quadrature_piece> pieces_of(const axis_problem& p, end_maps& maps, b
 }
 
 // The integrands at one node, from one evaluation of each law whose window
-// holds it: f_k prod_{j != k} C_j for every group k (answers::every_best) or
-// the first only (first_best), or the expected best's integrand (expected).
+// holds it: f_k prod_{j != k} C_j for every group k and then the expected
+// best's integrand (answers::every: G + 1 values), or f_1 prod_{j != 1} C_j
+// alone (first_best).
 class node_values {
 public:
     node_values(const axis_problem& p, const end_maps& maps, answers what, work_meter& meter)
@@ -282,7 +281,7 @@ public:
         const std::size_t G = p_.laws.size();
         const axis_point at = point_at(map, v, maps_);
         if (!(at.jacobian > 0) || !(at.s > 0) || !(at.s_gap > 0) || !std::isfinite(at.jacobian)) {
-            std::fill(values, values + (what_ == answers::every_best ? G : 1), 0.0);
+            std::fill(values, values + (what_ == answers::every ? G + 1 : 1), 0.0);
             return;
         }
         double work = 0;
@@ -291,22 +290,22 @@ public:
         // Every group's product of the others without dividing: prefix and suffix sums in logs.
         prefix_[0] = 0;
         for (std::size_t j = 0; j < G; ++j) prefix_[j + 1] = prefix_[j] + log_c_[j];
-        if (what_ == answers::expected) {
-            values[0] = (p_.want_high ? -std::expm1(prefix_[G]) : std::exp(prefix_[G])) * at.jacobian;
-            return;
-        }
         double suffix = 0;
         for (std::size_t j = G; j-- > 0;) {
             const double v_j = std::isfinite(log_f_[j]) ? std::exp(log_f_[j] + prefix_[j] + suffix) * at.jacobian : 0.0;
-            if (what_ == answers::every_best) values[j] = v_j;
+            if (what_ == answers::every) values[j] = v_j;
             else if (j == 0) values[0] = v_j;
             suffix += log_c_[j];
         }
+        // The expected best: 1 - prod F_j for the highest, prod (1 - F_j)
+        // for the lowest (in the pass's coordinate).
+        if (what_ == answers::every)
+            values[G] = (p_.want_high ? -std::expm1(prefix_[G]) : std::exp(prefix_[G])) * at.jacobian;
     }
 
 private:
     bool needs_density(std::size_t j) const {
-        return what_ == answers::every_best || (what_ == answers::first_best && j == 0);
+        return what_ == answers::every || j == 0;
     }
 
     // The law's values at the node; returns their cost.
@@ -359,30 +358,29 @@ namespace {
 
 across_groups one_pass(std::span<const beta_law> input, goal g, reach how, answers what, work_meter& meter,
                        bool allow_double) {
-    const std::size_t G = input.size(), width = what == answers::every_best ? G : 1;
+    const std::size_t G = input.size(), width = what == answers::every ? G + 1 : 1;
     const axis_problem p = set_up(input, g, how.tail, allow_double);
     end_maps maps;
-    const auto pieces = pieces_of(p, maps, what != answers::expected);
+    const auto pieces = pieces_of(p, maps);
     const double floor = rounding_floor(p);
     vector_tolerance tolerance{std::max(how.relative, floor), std::vector<double>(width, how.absolute),
                                std::max(how.small_relative, floor), 1e-3};
     // The expected best is a rate, not a probability that may be tiny.
-    if (what == answers::expected) tolerance.absolute[0] = std::max(1e-13, floor * p.to);
+    if (what == answers::every) tolerance.absolute[G] = std::max(1e-13, floor * p.to);
     const auto integrals = pieces.empty() ? vector_integrals{std::vector<double>(width, 0.0), {}, 0}
                                           : integrate_pieces(node_values(p, maps, what, meter), pieces, width, tolerance);
     across_groups out;
-    if (what == answers::expected) {
+    for (std::size_t k = 0; k < G; ++k)
+        out.best.push_back(what == answers::every || k == 0 ? std::clamp(integrals.value[k], 0.0, 1.0)
+                                                            : std::numeric_limits<double>::quiet_NaN());
+    if (what == answers::every) {
         // Below `from` the integrand of the expected best is 1 (some law is
         // surely below / every law is surely above), beyond `to` it is 0.
-        const double expected = p.from + integrals.value[0];
+        const double expected = p.from + integrals.value[G];
         out.expected_best = p.mirrored ? 1 - expected : expected;
         for (const auto& l : p.laws)
             out.loss.push_back(std::max(0.0, p.want_high ? expected - l.mean() : l.mean() - expected));
-        return out;
     }
-    for (std::size_t k = 0; k < G; ++k)
-        out.best.push_back(what == answers::every_best || k == 0 ? std::clamp(integrals.value[k], 0.0, 1.0)
-                                                                 : std::numeric_limits<double>::quiet_NaN());
     return out;
 }
 

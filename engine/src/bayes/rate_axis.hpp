@@ -8,7 +8,8 @@
 // Bayesian Data Analysis, 3rd ed., for the laws; the integrals are the
 // order-statistic identities of any probability text). The G integrals of
 // P(best) share the node values, so that pass costs about what one integral
-// costs; E[best] needs no densities and has a pass of its own.
+// costs, and E[best] comes from the same node values (the product of all
+// the CDFs, which the P(best) products share).
 //
 // What makes it trustworthy for laws of very different widths (a pilot of 5
 // beside a line of 10^4, where a single adaptive rule over one group's window
@@ -61,12 +62,13 @@ inline constexpr reach for_comparison{1e-16, 1e-9, 1e-12, 1e-9};
 // 10^5 (wider than the quantile, never narrower).
 double lower_tail_point(double a, double b, double tail);
 
-// Which answers one pass computes: every group's P(best) (RATES.POST.BEST,
-// the table's column), the first group's alone (P(ahead) of two laws; the
-// others are NaN), or the expected best rate and every group's loss
-// (RATES.POST.LOSS: CDFs only, no densities). Each answer always comes from
-// the same kind of pass, so a cell never depends on which cell ran first.
-enum class answers { every_best, first_best, expected };
+// Which answers one pass computes: every group's P(best) and the expected
+// best rate with every group's loss, from the same node values
+// (RATES.POST.BEST, .LOSS and the table's columns), or the first group's
+// P(best) alone (P(ahead) of two laws; the others are NaN, no loss). Each
+// answer always comes from the same kind of pass, so a cell never depends on
+// which cell ran first.
+enum class answers { every, first_best };
 
 // Work cap of one call, in law evaluations at quadrature nodes weighted by
 // their cost (a unit is about 1 us, so the cap is about 2 s): past it,

@@ -11,7 +11,7 @@
 
 #include <span>
 #include <string>
-#include <tuple>
+#include <utility>
 #include <vector>
 
 #include "tallyrates/bayes/law.hpp"
@@ -23,25 +23,24 @@ namespace tallyrates::bayes {
 
 // Caps on the groups of one call (budget_exceeded, Err:523, beyond them):
 // BEST and LOSS integrate products over every group (one pass for all of
-// them), TABLE is both passes plus G credible intervals. 500 groups of 300
+// them), TABLE is the same pass plus G credible intervals. 500 groups of 300
 // take 70 ms (flat prior) and 0.1 s (Jeffreys') a pass (README, Speed):
 // their laws are evaluated in double while groups x attempts stay below 3e5
 // (rate_axis.cpp); beyond, in long double, 10 times slower, and the work cap
 // of a pass (about 2 s) refuses what larger groups would cost.
 inline constexpr std::size_t max_groups_best = 500, max_groups_table = max_groups_best;
 
-// Every group's chance of being the best and expected loss, each from one
+// Every group's chance of being the best and expected loss, all from one
 // pass over the rate axis for all groups (src/bayes/rate_axis.hpp).
 struct across_groups {
     std::vector<double> best;  // P(group k has the best rate)
     std::vector<double> loss;  // E[best rate] - E[rate_k] (mirrored for goal low), >= 0
     double expected_best = 0;  // E[max] for goal high, E[min] for goal low
 };
-// Memo of those passes keyed by the laws' parameters, the goal and which
-// pass (0: P(best), 1: expected best), so that a column of RATES.POST.BEST
-// or .LOSS cells beside a RATES.POST.TABLE costs one pass each, and every
-// cell shows the table's value to the last bit.
-using across_key = std::tuple<std::vector<double>, goal, int>;
+// Memo of the pass keyed by the laws' parameters and the goal, so that
+// columns of RATES.POST.BEST and .LOSS cells beside a RATES.POST.TABLE cost
+// one pass in all, and every cell shows the table's value to the last bit.
+using across_key = std::pair<std::vector<double>, goal>;
 using across_cache = lru_cache<across_key, across_groups>;
 across_groups across(std::span<const beta_law> laws, goal g, across_cache* cache = nullptr);
 
