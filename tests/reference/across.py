@@ -4,9 +4,9 @@ and the table's columns) at G = 30 and G = 200 groups of mixed sizes (5 to
 10^6 attempts), with the flat and Jeffreys' prior, goal high and low: 50-digit
 mpmath, computed here without the engine.
 
-Writes across.csv, the 30 groups (about 3 minutes of one core), or with
-"large" across_large.csv, the 200 groups (about N minutes of each of two
-cores), both with the header of every reference table; the quantity is
+Writes across.csv, the 30 groups (about 2 minutes in two processes), or
+with "large" across_large.csv, the 200 groups (about 25 minutes in two
+processes), both with the header of every reference table; the quantity is
 best|prior|goal|i or loss|prior|goal|i (prior 1 or 0.5 for both parameters,
 goal high or low, i counted from 1):
 
