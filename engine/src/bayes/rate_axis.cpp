@@ -219,7 +219,9 @@ std::pair<double, double> range_of(const std::vector<placed_law>& laws, bool wan
 
 axis_problem set_up(std::span<const beta_law> input, goal g, double tail, bool allow_double) {
     axis_problem p;
-    for (const auto& law : input) p.laws.push_back(place(law, tail, false, allow_double ? input.size() : std::numeric_limits<std::size_t>::max()));
+    // Counted as more groups than any call has, a law is in long double.
+    const std::size_t groups = allow_double ? input.size() : std::numeric_limits<std::size_t>::max();
+    for (const auto& law : input) p.laws.push_back(place(law, tail, false, groups));
     const bool high = g == goal::high;
     const auto [from, to] = range_of(p.laws, high);
     p.mirrored = from + to > 1;
