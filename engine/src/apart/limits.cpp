@@ -7,6 +7,7 @@
 #include <boost/math/distributions/normal.hpp>
 #include <cmath>
 #include <numeric>
+#include <utility>
 
 #include "detail/hypergeometric.hpp"
 #include "tallyrates/core/errors.hpp"
@@ -35,7 +36,19 @@ double upper_z(double tail) { return boost::math::quantile(boost::math::compleme
 
 // ---- one group's binomial limits ----
 
-// Smallest x with P(X <= x) >= tail, largest with P(X >= x) >= tail.
+// The counts a group's region runs over, from the smallest count with
+// P(X <= x) >= tail (a) and the largest with P(X >= x) >= tail (b). For a
+// tail of at most 1/2 the median is never flagged, so a <= b exactly; when
+// the tail rounds to 1/2 (levels below about 1e-16) the two sums can round
+// past each other by one count, and the region is then the two counts at the
+// median (found by tests/fuzz/fuzz_apart: a level of 2.6e-316 gave a > b).
+std::pair<std::int64_t, std::int64_t> region_between(std::int64_t a, std::int64_t b) {
+    return a <= b ? std::pair{a, b} : std::pair{b, a};
+}
+
+// Smallest x with P(X <= x) >= tail, largest with P(X >= x) >= tail (for a
+// tail above 1/2 the second may lie below the first: the funnel uses the
+// first as a quantile).
 interval binomial_counts(std::int64_t n, double c, double tail) {
     if (c <= 0) return {0.0, 0.0};
     if (c >= 1) return {static_cast<double>(n), static_cast<double>(n)};
@@ -232,9 +245,11 @@ void normal_limits(const whole& w, const options& o, bool by_standard, result& o
 void standard_limits(const whole& w, const options& o, result& out) {
     out.tail = o.together == family::each ? (1 - w.level) / 2 : sidak_tail(w.level, w.groups.size());
     for (std::size_t r = 0; r < w.groups.size(); ++r) {
-        const auto counts_in = binomial_counts(w.groups[r].attempts, out.centre, out.tail);
+        const auto ends = binomial_counts(w.groups[r].attempts, out.centre, out.tail);
+        const auto [low, high] =
+            region_between(static_cast<std::int64_t>(ends.low), static_cast<std::int64_t>(ends.high));
         const double n = static_cast<double>(w.groups[r].attempts);
-        out.rows[r].limits = {counts_in.low / n, counts_in.high / n};
+        out.rows[r].limits = {static_cast<double>(low) / n, static_cast<double>(high) / n};
     }
 }
 
@@ -259,7 +274,7 @@ void joint_limits(const whole& w, result& out) {
     for (const auto& g : gs) laws.push_back(marginal_of(big_n, s, g.attempts));
     auto regions_at = [&](double t) {
         std::vector<std::pair<std::int64_t, std::int64_t>> region;
-        for (const auto& m : laws) region.emplace_back(m.low(t), m.high(t));
+        for (const auto& m : laws) region.push_back(region_between(m.low(t), m.high(t)));
         return region;
     };
     // The tails at which some group's region changes, between the Sidak

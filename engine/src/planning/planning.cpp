@@ -198,7 +198,11 @@ std::int64_t width(double rate, double half, double level, one_rate::method how)
     for (int steps = 0; steps < 1000000 && n <= cap; ++steps) {
         const double x = count_at(n), k = smaller_at(n);
         const double side = x <= static_cast<double>(n) / 2 ? rate : 1 - rate;  // the rate of the smaller count
-        auto end = side > 0 ? std::min(cap, static_cast<std::int64_t>(std::ceil((k + 0.5) / side))) : cap;
+        // Where the smaller count next changes; past the cap (a rate of 1e-300
+        // reaches it at 1e300 attempts) the cap itself, compared in double
+        // before converting, since such a value has no int64_t.
+        const double next_change = side > 0 ? std::ceil((k + 0.5) / side) : max_attempts;
+        auto end = next_change < max_attempts ? static_cast<std::int64_t>(next_change) : cap;
         for (int back = 0; back < 64 && end > n && smaller_at(end) != k; ++back) --end;
         if (end > n && smaller_at(end) == k) {
             if (narrow_enough(end)) return first_meeting(n, end, narrow_enough);

@@ -200,3 +200,29 @@ TEST(Apart, LargeGroupsFarFromHalfStillUseTheMargins) {
         EXPECT_NEAR(high.rows[g].limits.high, 1 - low.rows[g].limits.low, 1e-12);
     }
 }
+
+// Found by tests/fuzz/fuzz_apart (corpus/apart/finding-level-2.6e-316): at a
+// level of 2.6e-316 the tail rounds to 1/2, the two tail sums of a group's
+// law rounded past each other, the region came out empty and the recursion
+// read before its array (undefined behaviour caught by UBSan). In exact
+// arithmetic a tail of at most 1/2 never flags the median, so every route
+// must give limits in order, inside [0, 1], around a count the group can
+// have (common practice, no source: the definition of a median).
+TEST(Apart, LevelsThatRoundTheTailToOneHalfStillGiveOrderedLimits) {
+    const auto c = tally({11, 117, 2}, {58, 199, 3});
+    for (double level : {2.6463580382514125e-316, 1e-300, 1e-17})
+        for (auto together : {apart::family::all, apart::family::each})
+            for (auto how : {apart::method::exact, apart::method::normal})
+                for (auto target : {std::optional<double>{}, std::optional<double>{0.4}}) {
+                    apart::options o;
+                    o.level = level;
+                    o.together = together;
+                    o.how = how;
+                    o.target = target;
+                    for (const auto& row : apart::limits(c, o).rows) {
+                        EXPECT_LE(0.0, row.limits.low);
+                        EXPECT_LE(row.limits.low, row.limits.high) << level << " at position " << row.position;
+                        EXPECT_LE(row.limits.high, 1.0);
+                    }
+                }
+}

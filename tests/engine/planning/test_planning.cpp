@@ -153,6 +153,20 @@ TEST(Planning, WidthIsFirstMeetingN) {
         }
 }
 
+// Found by tests/fuzz/fuzz_planning (corpus/planning/finding-width-rate-1e-293):
+// for a rate of 1e-293 the search converted 1e293, the attempts at which the
+// count would first reach 1, to int64_t (undefined behaviour, caught by UBSan
+// in the sanitize preset). Up to the cap of 10^9 attempts such a rate expects
+// no success, as a rate of 0 does, so both need the same attempts
+// (common practice, no source: the count nearest rate x n is 0 for both).
+TEST(Planning, WidthForARateFarBelowOneInTheCapIsTheWidthForZero) {
+    for (auto how : {one_rate::method::wilson, one_rate::method::clopper_pearson, one_rate::method::jeffreys,
+                     one_rate::method::agresti_coull})
+        for (double tiny : {1.3436e-293, 1e-300, 4.9e-324})
+            for (double half : {0.0117, 0.05})
+                EXPECT_EQ(planning::width(tiny, half, 0.95, how), planning::width(0.0, half, 0.95, how));
+}
+
 TEST(Planning, UnreachableTargetsAreRefusedQuickly) {
     const auto start = std::chrono::steady_clock::now();
     EXPECT_THROW(planning::demonstration(1.0, 0.95, 0), unreachable_target);
