@@ -78,15 +78,19 @@ def heading(cell, text):
 
 
 def number_format(doc, code):
+    """The key of a number format in a spreadsheet or a chart (a chart has
+    formats of its own and no locale: the default one)."""
+    import uno
     formats = doc.NumberFormats
-    locale = doc.CharLocale
+    locale = getattr(doc, "CharLocale", None) or uno.createUnoStruct("com.sun.star.lang.Locale")
     key = formats.queryKey(code, locale, False)
     return key if key != -1 else formats.addNew(code, locale)
 
 
-def add_interval_bars(office, chart, sheet_name):
-    """Error bars from the interval columns: a bar of 14 of 14 without its
-    interval would mislead (the chart2 API: an ErrorBar fed from cells)."""
+def add_interval_bars(office, chart, sheet_name, last_row):
+    """Error bars from the interval columns (rows 5 to last_row): a rate of
+    14 of 14 without its interval would mislead (the chart2 API: an ErrorBar
+    fed from cells)."""
     series = chart.getFirstDiagram().getCoordinateSystems()[0].getChartTypes()[0].getDataSeries()[0]
     provider = chart.getDataProvider()
     bars = office.smgr.createInstanceWithContext("com.sun.star.chart2.ErrorBar", office.ctx)
@@ -95,13 +99,68 @@ def add_interval_bars(office, chart, sheet_name):
     bars.ShowNegativeError = True
     sequences = []
     for column, role in (("I", "error-bars-y-positive"), ("J", "error-bars-y-negative")):
-        values = provider.createDataSequenceByRangeRepresentation("$'%s'.$%s$5:$%s$11" % (sheet_name, column, column))
+        values = provider.createDataSequenceByRangeRepresentation(
+            "$'%s'.$%s$5:$%s$%d" % (sheet_name, column, column, last_row))
         values.Role = role
         labeled = office.smgr.createInstanceWithContext("com.sun.star.chart2.data.LabeledDataSequence", office.ctx)
         labeled.setValues(values)
         sequences.append(labeled)
     bars.setData(tuple(sequences))
     series.ErrorBarY = bars
+
+
+def pass_rate_chart(office, sheet, at):
+    """Each oven's pass rate as a point with its 95 % interval as a bar, and
+    the plant target as a line: points, not bars from a cut axis (a bar's
+    length would exaggerate a difference of a few points); the rate axis
+    starts where the data and intervals do and ends at 100 %. It covers the
+    filled rows only, so no empty category slots stand for the spare rows;
+    the sheet says how to take a new oven in."""
+    last = 4 + len(OVENS)  # the last filled row (1-based)
+    rows = (CellRangeAddress(0, 0, 3, 0, last - 1),    # A4:A<last>: oven names, header above
+            CellRangeAddress(0, 3, 3, 3, last - 1),    # D: pass rate
+            CellRangeAddress(0, 13, 3, 13, last - 1),  # N: the plant target beside each oven
+            CellRangeAddress(0, 5, 3, 6, last - 1))    # F, G: the interval's ends, as marks
+    chart = titled_chart(sheet, "PassRates", Rectangle(at.X, at.Y, 13000, 10500), rows, True, None,
+                         ("Pass rate of each oven, with its 95 % confidence interval", "Oven",
+                          "Pass rate (boards passing inspection)"))
+    chart.Diagram = chart.createInstance("com.sun.star.chart.LineDiagram")
+    chart.Diagram.Lines = True
+    import uno
+    rate = chart.Diagram.getDataRowProperties(0)
+    rate.SymbolType = 8  # com.sun.star.chart.ChartSymbolType: a circle
+    rate.LineStyle = uno.Enum("com.sun.star.drawing.LineStyle", "NONE")
+    # Series in column order: D (rate), F and G (the interval's ends), N (target).
+    target = chart.Diagram.getDataRowProperties(3)
+    target.SymbolType = -3  # none: the target is a line
+    target.LineWidth = 50
+    # The interval's ends as short marks, joined by the error bar: as series
+    # they also make the automatic rate axis reach the lowest end (Calc's
+    # automatic axis then starts at 0 % unless the lowest value is within a
+    # sixth of the highest, so a poor oven never falls off the chart).
+    for k in (1, 2):
+        end = chart.Diagram.getDataRowProperties(k)
+        end.SymbolType = 13  # a horizontal bar
+        end.LineStyle = uno.Enum("com.sun.star.drawing.LineStyle", "NONE")
+        end.FillColor = end.LineColor = 0xC00000  # both ends alike, apart from the point's colour
+    legend_below(chart)
+    add_interval_bars(office, chart, sheet.Name, last)
+    y_axis = chart.Diagram.YAxis
+    y_axis.AutoMin, y_axis.AutoMax = True, False
+    y_axis.Max = 1.0
+    shift_categories(chart)
+    # Oven names level and wrapped, not turned on their side.
+    chart.Diagram.XAxis.TextRotation = 0
+    chart.Diagram.XAxis.TextBreak = True
+
+
+def shift_categories(chart):
+    """Each category in the middle of its slot, so that the first and last
+    groups' points and bars do not sit on the plot's edges (chart2 API)."""
+    axis = chart.getFirstDiagram().getCoordinateSystems()[0].getAxisByDimension(0, 0)
+    scale = axis.getScaleData()
+    scale.ShiftedCategoryPosition = True
+    axis.setScaleData(scale)
 
 
 CURVE_TOP, CURVE_POINTS = 34, 401  # the curve block: a header row, then 401 rates from 0 to 1
@@ -152,13 +211,20 @@ def add_curves_sheet(doc):
     cell("E27:E30").NumberFormat = number_format(doc, "0.00")
     cell("F27:F30").NumberFormat = number_format(doc, "0.00%")
     cell("A26:F26").CharWeight = 150
+    cell("A26:F26").IsTextWrapped = True
     cell("B26:F26").HoriJustify = 3  # RIGHT, over the numbers
     for col in "BCDEF":
         sheet.Columns.getByName(col).Width = 2900
     data = CellRangeAddress(1, 0, CURVE_TOP - 1, 4, bottom - 1)  # A..E, header row (legend) to the last rate
     chart = titled_chart(sheet, "PosteriorCurves", rect, (data,), False, "XYDiagram",
-                         ("Posterior density of each oven's pass rate", "Pass rate", "Density"))
+                         ("Where each oven's pass rate probably lies", "Pass rate",
+                          "More likely (higher curve)"))
+    # A density's scale means nothing on the shop floor: the height compares
+    # rates, so the axis keeps its title and drops its numbers.
+    chart.Diagram.HasYAxisDescription = False
     x_axis = chart.Diagram.XAxis
+    x_axis.LinkNumberFormatToSource = False
+    x_axis.NumberFormat = number_format(chart, "0%")
     x_axis.AutoMin, x_axis.AutoMax = False, False
     x_axis.Min, x_axis.Max = 0.75, 1.0
     for k in range(5):  # the x column counts as a data row in an XY diagram
@@ -274,7 +340,8 @@ def main():
         cell("A1").CharHeight = 14
         cell("A1").CharWeight = 150
         cell("A2").setString("Invented example data. Type new counts in rows 5 to 11; rows left blank are skipped. "
-                             "Needs the tallyrates extension.")
+                             "The pass-rate chart shows the filled rows: after adding an oven, widen its data "
+                             "ranges (right-click the chart, Data Ranges). Needs the tallyrates extension.")
         for col, text in zip("ABCDE", ["Oven", "Boards passing", "Boards run", "Pass rate", "Belt speed (cm/min)"]):
             heading(cell(col + "4"), text)
         for k, (name, x, n, speed) in enumerate(OVENS):
@@ -310,6 +377,10 @@ def main():
         cell("H5:H11").NumberFormat = number_format(doc, "+0.00;-0.00")
         cell("I4").setString("error bar up")
         cell("J4").setString("error bar down")
+        # The plant target beside each filled row: the chart's target line.
+        cell("N4").setString("Plant target")
+        for r in range(5, 12):
+            cell("N%d" % r).setFormula('=IF(C%d>0;$B$3;"")' % r)
         cell("A13").setString("Results")
         cell("A13").CharWeight = 150
         for k, (label, formula, fmt) in enumerate(RESULTS):
@@ -364,8 +435,8 @@ def main():
         columns = sheet.Columns
         for col, width in zip("ABCDEFGHIJKLM", [7800, 3600, 2600, 2400, 3800, 2400, 2600, 2800, 0, 0, 3000, 2200, 3000]):
             columns.getByName(col).Width = width
-        # The error-bar helper columns are for the chart only.
-        for col in "IJ":
+        # The error-bar and target helper columns are for the chart only.
+        for col in "IJN":
             columns.getByName(col).IsVisible = False
         # One landscape page: what colleagues print and file.
         style = doc.StyleFamilies.getByName("PageStyles").getByName(sheet.PageStyle)
@@ -374,20 +445,8 @@ def main():
         style.Width, style.Height = max(width, height), min(width, height)
         style.ScaleToPagesX = 1
         style.ScaleToPagesY = 1
-        # Pass rate by oven with its interval, for the eye.
-        # Right of the results, clear of the report's long sentences, so that
-        # the page stays about as wide as the tally.
-        at = cell("K16").Position
-        rect = Rectangle(at.X, at.Y, 8800, 8000)
-        # Every row that invites counts (5 to 11), so a new oven appears as it is typed.
-        label_area = CellRangeAddress(0, 0, 3, 0, 10)  # A4:A11
-        chart = titled_chart(sheet, "PassRates", rect, (label_area, CellRangeAddress(0, 3, 3, 3, 10)), True, None,
-                             ("Pass rate by oven", "Oven", "Boards passing inspection (95 % interval)"))
-        add_interval_bars(office, chart, sheet.Name)
-        # From 50 %: room for the intervals of short runs, without hiding a poor oven.
-        y_axis = chart.Diagram.YAxis
-        y_axis.AutoMin, y_axis.AutoMax = False, False
-        y_axis.Min, y_axis.Max = 0.5, 1.0
+        # Pass rate by oven with its interval and the plant target, for the eye.
+        pass_rate_chart(office, sheet, cell("K13").Position)
         add_curves_sheet(doc)
         add_limits_sheet(doc)
         doc.calculateAll()

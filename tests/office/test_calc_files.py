@@ -128,8 +128,37 @@ class SampleWorkbook(SheetCase):
         self.assertEqual(curves.getCellRangeByName("B34").getString(), "Oven A (line 1)")
         for address in ("A35", "B250", "E435", "F30"):
             self.assertEqual(curves.getCellRangeByName(address).getError(), 0, address)
+        # Where each oven's pass rate probably lies: rates in % on the x axis,
+        # no density numbers on the y axis (they mean nothing on the floor).
+        curve_chart = curves.Charts.getByIndex(0).EmbeddedObject
+        self.assertFalse(curve_chart.Diagram.HasYAxisDescription)
+        x_axis = curve_chart.Diagram.XAxis
+        self.assertFalse(x_axis.LinkNumberFormatToSource)
+        self.assertEqual(curve_chart.NumberFormats.getByKey(x_axis.NumberFormat).FormatString, "0%")
         trial = self.doc.Sheets.getByName("Oven trial")
         self.assertEqual(trial.Charts.getCount(), 1)
+        # The pass-rate chart (issue 23, charts that do not mislead): points,
+        # not bars; the filled rows 5 to 8 only (row 4 the header), so no empty
+        # slot stands for a spare row; columns A (ovens), D (rate), F and G
+        # (the interval's ends), N (the plant target); the rate axis ends at
+        # 100 % and starts where Calc's automatic scale puts it.
+        rate_chart = trial.Charts.getByIndex(0)
+        ranges = rate_chart.getRanges()
+        # (a reloaded chart may hold its categories apart, without the header)
+        self.assertEqual((min(r.StartRow for r in ranges), max(r.EndRow for r in ranges)), (3, 7))
+        self.assertTrue(all(r.StartRow in (3, 4) for r in ranges))
+        self.assertEqual(sorted({c for r in ranges for c in range(r.StartColumn, r.EndColumn + 1)}),
+                         [0, 3, 5, 6, 13])
+        diagram = rate_chart.EmbeddedObject.Diagram
+        self.assertEqual(diagram.getDiagramType(), "com.sun.star.chart.LineDiagram")
+        self.assertEqual(diagram.getDataRowProperties(0).SymbolType, 8)  # the rate: a point
+        self.assertEqual(diagram.getDataRowProperties(0).LineStyle.value, "NONE")  # no line between ovens
+        self.assertEqual(diagram.getDataRowProperties(3).SymbolType, -3)  # the target: a line
+        self.assertTrue(diagram.YAxis.AutoMin)
+        self.assertFalse(diagram.YAxis.AutoMax)
+        self.assertEqual(diagram.YAxis.Max, 1.0)
+        self.assertEqual(trial.getCellRangeByName("N4").getString(), "Plant target")
+        self.assertEqual(trial.getCellRangeByName("N5").getValue(), 0.95)
         used = trial.createCursor()
         used.gotoEndOfUsedArea(False)
         end = used.getRangeAddress()
