@@ -163,7 +163,7 @@ def shift_categories(chart):
     axis.setScaleData(scale)
 
 
-CURVE_TOP, CURVE_POINTS = 34, 401  # the curve block: a header row, then 401 rates from 0 to 1
+CURVE_TOP, CURVE_POINTS = 34, 401  # the curve block: a header row, then 401 rates over the likely span
 
 
 def titled_chart(sheet, name, rect, ranges, row_headers, diagram, titles):
@@ -196,8 +196,11 @@ def add_curves_sheet(doc):
                          "14 of 14 still leaves a wide spread, down to about 80 %.")
     bottom = CURVE_TOP + CURVE_POINTS
     block = "A%d:E%d" % (CURVE_TOP, bottom)
-    cell(block).setArrayFormula("RATES.POST.CURVE($'Oven trial'.B5:B8;$'Oven trial'.C5:C8;%d;;;$'Oven trial'.A5:A8)"
-                                % CURVE_POINTS)
+    # Span "likely": the rates where some oven's rate probably lies, so the
+    # chart's automatic x axis follows the counts (a poor oven never falls off).
+    cell(block).setArrayFormula(
+        "RATES.POST.CURVE($'Oven trial'.B5:B8;$'Oven trial'.C5:C8;%d;;;$'Oven trial'.A5:A8;\"likely\")"
+        % CURVE_POINTS)
     cell("A%d" % (CURVE_TOP - 1)).setString("Data for the chart (array formula; its header row names the ovens):")
     at = cell("A4").Position
     rect = Rectangle(at.X, at.Y, 24000, 8000)
@@ -225,8 +228,9 @@ def add_curves_sheet(doc):
     x_axis = chart.Diagram.XAxis
     x_axis.LinkNumberFormatToSource = False
     x_axis.NumberFormat = number_format(chart, "0%")
-    x_axis.AutoMin, x_axis.AutoMax = False, False
-    x_axis.Min, x_axis.Max = 0.75, 1.0
+    # The start follows the curves; the end is 100 %, never a padded 110 %.
+    x_axis.AutoMin, x_axis.AutoMax = True, False
+    x_axis.Max = 1.0
     for k in range(5):  # the x column counts as a data row in an XY diagram
         series = chart.Diagram.getDataRowProperties(k)
         series.SymbolType = -3  # com.sun.star.chart.ChartSymbolType.NONE: lines only

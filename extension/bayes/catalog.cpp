@@ -73,9 +73,15 @@ constexpr argument prior_same{
 constexpr std::array same_args{successes, attempts, prior_same, prior_a, prior_b};
 constexpr std::array curve_args{
     successes, attempts,
-    argument{"points", "How many rates from 0 % to 100 % the curves are drawn at (2 to 10001; 101 is every percent).",
+    argument{"points", "How many rates the curves are drawn at, evenly over the span (2 to 10001; with span "
+             "\"whole\", 101 is every percent).",
              static_cast<double>(bayes::default_curve_points)},
-    prior_a, prior_b, shared::labels};
+    prior_a, prior_b, shared::labels,
+    argument{"span", "Which rates the curves cover: \"whole\" every rate from 0 % to 100 %; \"likely\" only "
+             "where some group's rate is likely to lie (from the lowest group's 0.01 % quantile to the highest "
+             "group's 99.99 %, widened to whole percents), so that a chart with automatic axes follows the "
+             "counts as they change.",
+             "\"whole\""}};
 constexpr std::array table_args{successes, attempts, credible_level, shared::goal, prior_a, prior_b, shared::labels};
 
 constexpr std::array table{
@@ -147,10 +153,11 @@ constexpr std::array table{
              same_args},
     function{"postCurve", "RATES.POST.CURVE",
              "Array for a chart of what each group's rate may be: a header row (the labels, for the chart's "
-             "legend), then one row per rate from 0 to 1 with the posterior density of every filled row of the "
-             "tally beside it (a column per group). Enter "
+             "legend), then one row per rate (from 0 to 1, or with span \"likely\" where the rates probably "
+             "lie) with the posterior density of every filled row of the tally beside it (a column per group). "
+             "Enter "
              "as an array formula points + 1 rows by G + 1 columns; chart it as lines (x: the first column)."
-             WHY_502_POST_ALL(", points a whole number from 2 to 10001"),
+             WHY_502_POST_ALL(", points a whole number from 2 to 10001 and span one of the words listed"),
              curve_args, true},
     function{"postTable", "RATES.POST.TABLE",
              "Array with a header row, then one row per group: its name or position, expected rate, credible "

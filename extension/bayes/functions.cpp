@@ -166,7 +166,7 @@ double rates::postSame(const caller& document, const cells& successes, const cel
 }
 
 array rates::postCurve(const caller& document, const cells& successes, const cells& attempts, const Any& points,
-                       const Any& prior_a, const Any& prior_b, const Any& labels) {
+                       const Any& prior_a, const Any& prior_b, const Any& labels, const Any& span) {
     return guarded([&] {
         const auto names = convert::optional_texts(labels, "labels");
         const auto c = convert::counts_of(document, successes, attempts, names);
@@ -175,7 +175,9 @@ array rates::postCurve(const caller& document, const cells& successes, const cel
                                              static_cast<double>(bayes::max_curve_points), "points");
         // The header names each column: a chart takes its legend from it.
         std::vector<std::vector<Any>> rows{convert::texts_to_row(bayes::curves_header(c))};
-        for (const auto& values : bayes::curves(c, n, prior_of(prior_a, prior_b))) {
+        const auto over = arguments::keyword_or(convert::word(span, "span"), bayes::default_curve_span,
+                                                keywords::curve_span, "span");
+        for (const auto& values : bayes::curves(c, n, prior_of(prior_a, prior_b), over)) {
             rows.emplace_back();
             for (const auto& v : values) rows.back().push_back(v ? Any(finite(*v)) : Any(OUString()));
         }

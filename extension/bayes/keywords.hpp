@@ -19,4 +19,9 @@ inline constexpr std::array<word<bayes::kind>, 3> credible_kind{{
     {"one-sided", bayes::kind::one_sided},
 }};
 
+inline constexpr std::array<word<bayes::curve_span>, 2> curve_span{{
+    {"whole", bayes::curve_span::whole},
+    {"likely", bayes::curve_span::likely},
+}};
+
 }  // namespace tallyrates::keywords

@@ -140,6 +140,7 @@ TEST(Catalog, EveryDefaultIsTheEngines) {
         {{"postTable", "goal"}, quoted(bayes::default_goal, keywords::goal)},
         {{"postAhead", "goal"}, quoted(default_goal, keywords::goal)},
         {{"postOrder", "goal"}, quoted(default_goal, keywords::goal)},
+        {{"postCurve", "span"}, quoted(bayes::default_curve_span, keywords::curve_span)},
         {{"planAhead", "goal"}, quoted(default_goal, keywords::goal)},
         {{"pairs", "goal"}, quoted(table.better, keywords::goal)},
         {{"marginP", "goal"}, quoted(default_goal, keywords::goal)},

@@ -81,8 +81,10 @@ extern "C" int LLVMFuzzerTestOneInput(const std::uint8_t* data, std::size_t size
             const auto n = arguments::whole_or(in.maybe_number(), bayes::default_curve_points,
                                                static_cast<double>(bayes::min_curve_points),
                                                static_cast<double>(bayes::max_curve_points), "points");
+            const auto over = arguments::keyword_or(in.word(keywords::curve_span), bayes::default_curve_span,
+                                                    keywords::curve_span, "span");
             bayes::curves_header(c);
-            bayes::curves(c, n, p);
+            bayes::curves(c, n, p, over);
             break;
         }
         case 9: {  // RATES.POST.TABLE

@@ -42,6 +42,7 @@ extern "C" int LLVMFuzzerTestOneInput(const std::uint8_t* data, std::size_t size
     parse(text, keywords::claim);
     parse(text, keywords::one_rate_method);
     parse(text, keywords::credible_kind);
+    parse(text, keywords::curve_span);
     parse(text, keywords::correction);
     parse(text, keywords::apart_family);
     parse(text, keywords::apart_method);

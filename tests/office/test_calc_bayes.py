@@ -112,6 +112,15 @@ class Posterior(SheetCase):
         import math
         want = math.exp(286 * math.log(0.9) + 14 * math.log(0.1) - (math.lgamma(287) + math.lgamma(15) - math.lgamma(302)))
         self.assertAlmostEqual(cell("O11").getValue() / want, 1.0, places=9)
+        # Span "likely": the rates from the lowest oven's 0.01 % quantile to the
+        # highest's 99.99 %, out to whole percents. scipy 1.10.1 beta.ppf(1e-4)
+        # of oven C (234, 28) is 0.81004, beta.isf(1e-4) of oven A (287, 15)
+        # 0.98438: 81 % to 99 %.
+        self.sheet.getCellRangeByName("S1:V12").setArrayFormula('RATES.POST.CURVE(%s;11;;;;"likely")' % r)
+        self.doc.calculateAll()
+        self.assertAlmostEqual(cell("S2").getValue(), 0.81, places=15)
+        self.assertEqual(cell("S12").getValue(), 0.99)
+        self.assertEqual(cell("T1").getString(), "position 1")
 
     def test_tables_of_30_and_200_groups_of_mixed_sizes(self):
         # RATES.POST.TABLE of the reference tallies of tests/reference/across.py

@@ -135,6 +135,14 @@ class SampleWorkbook(SheetCase):
         x_axis = curve_chart.Diagram.XAxis
         self.assertFalse(x_axis.LinkNumberFormatToSource)
         self.assertEqual(curve_chart.NumberFormats.getByKey(x_axis.NumberFormat).FormatString, "0%")
+        # The curves cover where the ovens' rates probably lie (span "likely":
+        # 54 % to 100 % here, the pilot's 14 of 14 the widest; quantiles from
+        # scipy 1.10.1, tests/engine/bayes Law.CurvesOverTheLikelyRatesFollowTheCounts)
+        # and the axis follows them.
+        self.assertAlmostEqual(curves.getCellRangeByName("A35").getValue(), 0.54, places=15)
+        self.assertEqual(curves.getCellRangeByName("A435").getValue(), 1.0)
+        self.assertTrue(x_axis.AutoMin)
+        self.assertEqual((x_axis.AutoMax, x_axis.Max), (False, 1.0))
         trial = self.doc.Sheets.getByName("Oven trial")
         self.assertEqual(trial.Charts.getCount(), 1)
         # The pass-rate chart (issue 23, charts that do not mislead): points,

@@ -200,6 +200,7 @@ BAYES = count_cases("=RATES.POST.MEAN({r};1)") + [
     ("prior same 0", *FINE, "=RATES.POST.SAME({r};0)", "Err:502", None),
     ("prior same 1", *FINE, "=RATES.POST.SAME({r};1)", "Err:502", None),
     ("curve of 1 point", *FINE, "=RATES.POST.CURVE({r};1)", "Err:502", None),
+    ("curve over an unknown span", *FINE, '=RATES.POST.CURVE({r};11;;;;"narrow")', "Err:502", None),
     ("groups of 1e12", [5e11, 4e11], [5e11, 5e11], "=RATES.POST.BEST({r};1)", OK, None),
     ("groups of 1e15 far apart", [5e14, 4e14], [5e14, 5e14], "=RATES.POST.BEST({r};1)", OK, None),
     ("two laws far apart", [1, 9e11], [1e11, 9e11], "=RATES.POST.AHEAD({r};1;2)", OK, None),

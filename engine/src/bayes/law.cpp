@@ -10,6 +10,7 @@
 #include <cmath>
 #include <limits>
 #include <string>
+#include <utility>
 
 #include "bayes/law_math.hpp"
 #include "tallyrates/bayes/comparison.hpp"
@@ -122,19 +123,41 @@ std::optional<double> density(const beta_law& law, double x) {
     return boost::math::ibeta_derivative(law.a, law.b, x);
 }
 
-std::vector<std::vector<std::optional<double>>> curves(const counts& c, std::int64_t points, prior p) {
+namespace {
+
+// The rates a span covers: [0, 1], or from the lowest group's curve_tail
+// quantile to the highest group's upper one, out to whole percents.
+std::pair<double, double> span_of(const std::vector<beta_law>& laws, curve_span span) {
+    if (span == curve_span::whole || laws.empty()) return {0.0, 1.0};
+    double low = 1, high = 0;
+    for (const auto& law : laws) {
+        low = std::min(low, quantile(law, curve_tail));
+        high = std::max(high, quantile(law, 1 - curve_tail));
+    }
+    low = std::clamp(std::floor(low * 100) / 100, 0.0, 0.99);
+    high = std::clamp(std::ceil(high * 100) / 100, low + 0.01, 1.0);
+    return {low, high};
+}
+
+}  // namespace
+
+std::vector<std::vector<std::optional<double>>> curves(const counts& c, std::int64_t points, prior p,
+                                                       curve_span span) {
     if (points < min_curve_points || points > max_curve_points)
         throw invalid_input("The argument points (" + std::to_string(points) + ") must be a whole number from " +
                             std::to_string(min_curve_points) + " to " + std::to_string(max_curve_points) +
-                            ": the rates drawn from 0 to 1.");
+                            ": the rates the curves are drawn at.");
     const auto laws = posteriors(c, p);
     if (static_cast<double>(points) * static_cast<double>(laws.size()) > max_curve_values)
         throw budget_exceeded("The curves of " + std::to_string(laws.size()) + " groups at " + std::to_string(points) +
                               " points are beyond the cap of " + format_number(max_curve_values) +
                               " values; draw fewer points or fewer groups.");
+    const auto [from, to] = span_of(laws, span);
     std::vector<std::vector<std::optional<double>>> rows;
     for (std::int64_t k = 0; k < points; ++k) {
-        const double x = static_cast<double>(k) / static_cast<double>(points - 1);
+        const double t = static_cast<double>(k) / static_cast<double>(points - 1);
+        // The ends exactly: the last rate is `to`, not from + (to - from) rounded.
+        const double x = k + 1 == points ? to : from + (to - from) * t;
         std::vector<std::optional<double>> row{x};
         for (const auto& law : laws) row.push_back(density(law, x));
         rows.push_back(std::move(row));

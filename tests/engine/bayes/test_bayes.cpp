@@ -8,6 +8,7 @@
 #include <cmath>
 #include <map>
 #include <sstream>
+#include <tuple>
 
 #include "reference.hpp"
 #include "tallyrates/bayes/across.hpp"
@@ -258,6 +259,32 @@ TEST(Compare, TableAndCurvesAreTheSingleCellAnswers) {
     EXPECT_FALSE(curve[0][3].has_value());   // Beta(0.5, 0.5) at 0: infinite
     EXPECT_FALSE(curve[10][2].has_value());  // Beta(14.5, 0.5) at 1: infinite
     EXPECT_THROW(bayes::curves(c, 1, p), invalid_input);
+}
+
+// RATES.POST.CURVE with span "likely": from the lowest group's 0.01 %
+// quantile to the highest group's 99.99 %, out to whole percents. Quantiles
+// from scipy 1.10.1 (beta.ppf(1e-4, x + 1, n - x + 1), beta.isf(1e-4, ...),
+// flat prior): the sample ovens 286/300 [0.89131, 0.98438], 271/290
+// [0.86429, 0.97390], 233/260 [0.81004, 0.95097], the pilot's 14/14
+// [0.54117, 0.99999]; so 54 % to 100 % with the pilot, 81 % to 99 % without.
+TEST(Law, CurvesOverTheLikelyRatesFollowTheCounts) {
+    const auto all = counts::from_values(std::vector<std::int64_t>{286, 271, 233, 14},
+                                         std::vector<std::int64_t>{300, 290, 260, 14});
+    const auto air = counts::from_values(std::vector<std::int64_t>{286, 271, 233},
+                                         std::vector<std::int64_t>{300, 290, 260});
+    for (const auto& [c, from, to] : {std::tuple{all, 0.54, 1.0}, std::tuple{air, 0.81, 0.99}}) {
+        const auto rows = bayes::curves(c, 47, {}, bayes::curve_span::likely);
+        ASSERT_EQ(rows.size(), 47u);
+        EXPECT_NEAR(*rows.front()[0], from, 1e-15);
+        EXPECT_EQ(*rows.back()[0], to);
+        // The densities are the whole span's at the same rates.
+        const auto law = bayes::posteriors(c, {})[0];
+        EXPECT_EQ(rows[20][1], bayes::density(law, *rows[20][0]));
+    }
+    // The default is every rate from 0 to 1.
+    const auto whole = bayes::curves(air, 11, {});
+    EXPECT_EQ(*whole.front()[0], 0.0);
+    EXPECT_EQ(*whole.back()[0], 1.0);
 }
 
 // Cross-group answers are bounded by the number of groups (README, Caps).

@@ -76,9 +76,17 @@ std::optional<double> density(const beta_law& law, double x);
 
 // Cap on the densities of one CURVE call, points x G (Err:523 beyond it).
 inline constexpr double max_curve_values = 2e6;
-// RATES.POST.CURVE: `points` rates evenly from 0 to 1 (2 to 10,001), and at
+// Which rates RATES.POST.CURVE draws: every rate from 0 to 1, or the rates
+// some group is likely to have, from the lowest group's curve_tail quantile
+// to the highest group's 1 - curve_tail quantile, widened to whole percents
+// (a chart with automatic axes then follows the counts as they change).
+enum class curve_span { whole, likely };
+inline constexpr curve_span default_curve_span = curve_span::whole;
+inline constexpr double curve_tail = 1e-4;
+// RATES.POST.CURVE: `points` rates evenly over the span (2 to 10,001), and at
 // each the density of every non-blank group: rows of {rate, d_1, ..., d_G}.
-std::vector<std::vector<std::optional<double>>> curves(const counts& c, std::int64_t points, prior p);
+std::vector<std::vector<std::optional<double>>> curves(const counts& c, std::int64_t points, prior p,
+                                                       curve_span span = default_curve_span);
 // Its header: "rate", then each non-blank group's label ("position 4" when
 // it has none), which a chart takes as its legend.
 std::vector<std::string> curves_header(const counts& c);
