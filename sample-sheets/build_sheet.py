@@ -121,7 +121,7 @@ def pass_rate_chart(office, sheet, at):
             CellRangeAddress(0, 3, 3, 3, last - 1),    # D: pass rate
             CellRangeAddress(0, 13, 3, 13, last - 1),  # N: the plant target beside each oven
             CellRangeAddress(0, 5, 3, 6, last - 1))    # F, G: the interval's ends, as marks
-    chart = titled_chart(sheet, "PassRates", Rectangle(at.X, at.Y, 13000, 10500), rows, True, None,
+    chart = titled_chart(sheet, "PassRates", Rectangle(at.X, at.Y, 17000, 10000), rows, True, None,
                          ("Pass rate of each oven, with its 95 % confidence interval", "Oven",
                           "Pass rate (boards passing inspection)"))
     chart.Diagram = chart.createInstance("com.sun.star.chart.LineDiagram")
@@ -234,6 +234,7 @@ def add_curves_sheet(doc):
     for k in range(5):  # the x column counts as a data row in an XY diagram
         series = chart.Diagram.getDataRowProperties(k)
         series.SymbolType = -3  # com.sun.star.chart.ChartSymbolType.NONE: lines only
+    landscape_pages(doc, sheet, "Posterior curves", 1)
     # Print the chart, not the 400 rows of data.
     from com.sun.star.table import CellRangeAddress as Area
     sheet.setPrintAreas((Area(1, 0, 0, 12, 30),))
@@ -262,6 +263,22 @@ def legend_below(chart):
     import uno
     chart.HasLegend = True
     chart.Legend.Alignment = uno.Enum("com.sun.star.chart.ChartLegendPosition", "BOTTOM")
+
+
+def landscape_pages(doc, sheet, name, pages_tall):
+    """A page style of the sheet's own (sheets sharing the default style
+    would share its scaling): A4 landscape, one page wide, `pages_tall`
+    pages tall (0: as many as the rows need)."""
+    styles = doc.StyleFamilies.getByName("PageStyles")
+    style = doc.createInstance("com.sun.star.style.PageStyle")
+    styles.insertByName(name, style)
+    style = styles.getByName(name)
+    style.IsLandscape = True
+    style.Width, style.Height = 29700, 21000
+    style.LeftMargin = style.RightMargin = 1200
+    style.ScaleToPagesX = 1
+    style.ScaleToPagesY = pages_tall
+    sheet.PageStyle = name
 
 
 def fixed_axis(axis, low, high):
@@ -326,11 +343,7 @@ def add_limits_sheet(doc):
                  ("Pass rate of each oven against its decision limits", "Oven", "Pass rate"), 0.5)
     limits_chart(sheet, "DailyPChart", cell("K%d" % DAYS_TOP).Position, DAYS_TOP - 1, last - 1,
                  ("p-chart of oven A, day by day", "Day", "Pass rate"), 0.8)
-    style = doc.StyleFamilies.getByName("PageStyles").getByName(sheet.PageStyle)
-    style.IsLandscape = True
-    style.Width, style.Height = max(style.Width, style.Height), min(style.Width, style.Height)
-    style.ScaleToPagesX = 1
-    style.ScaleToPagesY = 1
+    landscape_pages(doc, sheet, "Decision limits", 1)
 
 
 def main():
@@ -344,8 +357,9 @@ def main():
         cell("A1").CharHeight = 14
         cell("A1").CharWeight = 150
         cell("A2").setString("Invented example data. Type new counts in rows 5 to 11; rows left blank are skipped. "
-                             "The pass-rate chart shows the filled rows: after adding an oven, widen its data "
-                             "ranges (right-click the chart, Data Ranges). Needs the tallyrates extension.")
+                             "The pass-rate chart (below the planning block) shows the filled rows: after adding "
+                             "an oven, widen its data ranges (right-click the chart, Data Ranges). Needs the "
+                             "tallyrates extension.")
         for col, text in zip("ABCDE", ["Oven", "Boards passing", "Boards run", "Pass rate", "Belt speed (cm/min)"]):
             heading(cell(col + "4"), text)
         for k, (name, x, n, speed) in enumerate(OVENS):
@@ -437,20 +451,26 @@ def main():
         cell("A14").VertJustify = 1
         sheet.Rows.getByIndex(13).OptimalHeight = True
         columns = sheet.Columns
-        for col, width in zip("ABCDEFGHIJKLM", [7800, 3600, 2600, 2400, 3800, 2400, 2600, 2800, 0, 0, 3000, 2200, 3000]):
+        # Narrow enough for A4 landscape at 80 % or more (no type below 8 pt);
+        # long labels wrap, headers stand right over their numbers.
+        for col, width in zip("ABCDEFGHIJKLM", [6800, 3000, 2400, 2300, 2600, 2500, 2500, 2600, 0, 0, 3000, 2400, 3000]):
             columns.getByName(col).Width = width
+        cell("B4:M4").HoriJustify = 3  # RIGHT
+        cell("A4:M4").VertJustify = 3  # BOTTOM
+        cell("A14:A24").IsTextWrapped = True
         # The error-bar and target helper columns are for the chart only.
         for col in "IJN":
             columns.getByName(col).IsVisible = False
-        # One landscape page: what colleagues print and file.
-        style = doc.StyleFamilies.getByName("PageStyles").getByName(sheet.PageStyle)
-        width, height = style.Width, style.Height
-        style.IsLandscape = True
-        style.Width, style.Height = max(width, height), min(width, height)
-        style.ScaleToPagesX = 1
-        style.ScaleToPagesY = 1
-        # Pass rate by oven with its interval and the plant target, for the eye.
-        pass_rate_chart(office, sheet, cell("K13").Position)
+        # Landscape pages, as wide as the tally.
+        # As many pages as the rows need: the type stays readable. Columns A
+        # to M (the chart below the planning block included) and nothing that
+        # only overflows past them.
+        landscape_pages(doc, sheet, "Oven trial", 0)
+        from com.sun.star.table import CellRangeAddress as Area
+        sheet.setPrintAreas((Area(0, 0, 0, 12, PLAN_TOP + len(PLAN) + 28),))
+        # Pass rate by oven with its interval and the plant target, for the
+        # eye: below the planning block, where it prints at a readable size.
+        pass_rate_chart(office, sheet, cell("A%d" % (PLAN_TOP + len(PLAN) + 3)).Position)
         add_curves_sheet(doc)
         add_limits_sheet(doc)
         doc.calculateAll()

@@ -166,6 +166,18 @@ class SampleWorkbook(SheetCase):
         self.assertFalse(diagram.YAxis.AutoMax)
         self.assertEqual(diagram.YAxis.Max, 1.0)
         self.assertEqual(trial.getCellRangeByName("N4").getString(), "Plant target")
+        # Printing: each sheet its own page style (a shared one shared its
+        # scaling, and the tally shrank to one page of 6 pt type); the tally
+        # one A4 landscape page wide and as many tall as it needs, columns A
+        # to M only.
+        styles = self.doc.StyleFamilies.getByName("PageStyles")
+        names = [self.doc.Sheets.getByIndex(k).PageStyle for k in range(self.doc.Sheets.getCount())]
+        self.assertEqual(len(set(names)), len(names))
+        tally_style = styles.getByName(trial.PageStyle)
+        self.assertTrue(tally_style.IsLandscape)
+        self.assertEqual((tally_style.ScaleToPagesX, tally_style.ScaleToPagesY), (1, 0))
+        area = trial.getPrintAreas()[0]
+        self.assertEqual((area.StartColumn, area.EndColumn), (0, 12))
         self.assertEqual(trial.getCellRangeByName("N5").getValue(), 0.95)
         used = trial.createCursor()
         used.gotoEndOfUsedArea(False)
