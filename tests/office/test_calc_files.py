@@ -2,7 +2,6 @@
 """Saved workbooks: the stored function names are a file format, and a
 workbook saved with our functions must compute again when reopened."""
 import os
-import unittest
 import zipfile
 
 import harness
