@@ -21,8 +21,12 @@ import lo_session as lo
 IDENTIFIER = "org.tallyrates.calc"
 
 
-def unopkg(*args, answer=None):
-    r = subprocess.run([lo.PROGRAM + "/unopkg", *args], capture_output=True, text=True, input=answer)
+def unopkg(*args):
+    # The licence is the user's to accept (accept-by="user"): unopkg asks at
+    # the console when it adds the package and again when it first brings the
+    # shared layer up to date (seen at `list --shared`); the administrator
+    # answers, as here.
+    r = subprocess.run([lo.PROGRAM + "/unopkg", *args], capture_output=True, text=True, input="yes\n" * 4)
     if r.returncode != 0:
         raise SystemExit("unopkg %s failed: %s%s" % (" ".join(args), r.stdout, r.stderr))
     return r.stdout
@@ -54,9 +58,7 @@ def main():
     if os.geteuid() != 0 or len(sys.argv) != 2:
         raise SystemExit("usage, as root on a throwaway machine: shared_install.py tallyrates.oxt")
     oxt = os.path.abspath(sys.argv[1])
-    # The licence is the user's to accept (accept-by="user"): for every user
-    # the administrator accepts it at the console, as here.
-    unopkg("add", "--shared", oxt, answer="yes\n")
+    unopkg("add", "--shared", oxt)
     listed = unopkg("list", "--shared")
     assert IDENTIFIER in listed, listed
     error, value, total = cells_in_a_fresh_profile(oxt)
