@@ -22,10 +22,8 @@ IDENTIFIER = "org.tallyrates.calc"
 
 
 def unopkg(*args):
-    # The licence is the user's to accept (accept-by="user"): unopkg asks at
-    # the console when it adds the package and again when it first brings the
-    # shared layer up to date (seen at `list --shared`); the administrator
-    # answers, as here.
+    # The administrator accepts the licence at the console (accept-by="admin"
+    # in description.xml), once for every user; answered here.
     r = subprocess.run([lo.PROGRAM + "/unopkg", *args], capture_output=True, text=True, input="yes\n" * 4)
     if r.returncode != 0:
         raise SystemExit("unopkg %s failed: %s%s" % (" ".join(args), r.stdout, r.stderr))
